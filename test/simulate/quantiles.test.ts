@@ -40,15 +40,19 @@ describe('quantiles', () => {
 
   it('selects the k-th order statistic with everything partitioned around it', () => {
     fc.assert(
-      fc.property(fc.array(fc.integer({ min: -50, max: 50 }), { minLength: 1, maxLength: 200 }), fc.nat(), (xs, seed) => {
-        const a = Float64Array.from(xs);
-        const k = seed % a.length;
-        selectInPlace(a, k);
-        const sorted = [...xs].sort((x, y) => x - y);
-        expect(a[k]).toBe(sorted[k]);
-        for (let i = 0; i < k; i++) expect(a[i]).toBeLessThanOrEqual(a[k] as number);
-        for (let i = k + 1; i < a.length; i++) expect(a[i]).toBeGreaterThanOrEqual(a[k] as number);
-      }),
+      fc.property(
+        fc.array(fc.integer({ min: -50, max: 50 }), { minLength: 1, maxLength: 200 }),
+        fc.nat(),
+        (xs, seed) => {
+          const a = Float64Array.from(xs);
+          const k = seed % a.length;
+          selectInPlace(a, k);
+          const sorted = [...xs].sort((x, y) => x - y);
+          expect(a[k]).toBe(sorted[k]);
+          for (let i = 0; i < k; i++) expect(a[i]).toBeLessThanOrEqual(a[k] as number);
+          for (let i = k + 1; i < a.length; i++) expect(a[i]).toBeGreaterThanOrEqual(a[k] as number);
+        },
+      ),
     );
   });
 
