@@ -71,13 +71,39 @@ export function toMajor(minor: number, exponent: number): number {
 
 /**
  * Major units (a JSON number or decimal text from a plan or threshold) to minor units,
- * rounding half away from zero at the currency's precision.
+ * rounding half away from zero at the currency's precision. The rounding is done on the
+ * number's shortest decimal form (`String(major)`, the digits a person typed), not on the
+ * binary product `major * 10^exponent`, which misrounds halves such as 10000000.075.
+ *
+ * @throws EngineError INVALID_AMOUNT for a non-finite or too large amount.
  * @example fromMajor(12.345, 2) // 1235
+ * @example fromMajor(-0.5, 0) // -1
  */
 export function fromMajor(major: number, exponent: number): number {
   if (!Number.isFinite(major)) throw new EngineError('INVALID_AMOUNT', `not a finite amount: ${major}`);
-  const scaled = major * 10 ** exponent;
-  const rounded = Math.sign(scaled) * Math.round(Math.abs(scaled) + 1e-9);
-  if (!Number.isSafeInteger(rounded)) throw new EngineError('INVALID_AMOUNT', `amount too large: ${major}`);
-  return rounded === 0 ? 0 : rounded;
+  const { whole, fraction } = plainDigits(Math.abs(major));
+  const kept = whole + fraction.slice(0, exponent).padEnd(exponent, '0');
+  const roundUp = (fraction.charCodeAt(exponent) || 48) >= 53; // next digit >= '5'
+  const magnitude = Number(kept) + (roundUp ? 1 : 0);
+  if (!Number.isSafeInteger(magnitude)) throw new EngineError('INVALID_AMOUNT', `amount too large: ${major}`);
+  return magnitude === 0 ? 0 : major < 0 ? -magnitude : magnitude;
+}
+
+/** Whole and fraction digits of a non-negative finite number's shortest decimal form. */
+function plainDigits(value: number): { whole: string; fraction: string } {
+  const text = String(value);
+  const e = text.indexOf('e');
+  if (e < 0) {
+    const point = text.indexOf('.');
+    return point < 0 ? { whole: text, fraction: '' } : { whole: text.slice(0, point), fraction: text.slice(point + 1) };
+  }
+  // Exponent form, e.g. "1.5e-7" or "1e+21": shift the point by hand.
+  const mantissa = text.slice(0, e);
+  const power = Number(text.slice(e + 1));
+  const point = mantissa.indexOf('.');
+  const digits = point < 0 ? mantissa : mantissa.slice(0, point) + mantissa.slice(point + 1);
+  const position = (point < 0 ? mantissa.length : point) + power;
+  if (position <= 0) return { whole: '0', fraction: '0'.repeat(-position) + digits };
+  if (position >= digits.length) return { whole: digits + '0'.repeat(position - digits.length), fraction: '' };
+  return { whole: digits.slice(0, position), fraction: digits.slice(position) };
 }
