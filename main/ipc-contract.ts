@@ -1,0 +1,142 @@
+/**
+ * The one IPC contract between the Electron main process and the renderer. Each channel
+ * maps to its request and response types; the preload derives `window.ebbline` from
+ * `API_METHODS`, and main validates every payload with `REQUEST_VALIDATORS` before acting.
+ * Nothing else crosses the process boundary.
+ */
+
+/** A statement file the user picked in the native open dialog. */
+export interface OpenedFile {
+  readonly name: string;
+  readonly bytes: Uint8Array;
+}
+
+export interface SaveRequest {
+  readonly suggestedName: string;
+  /** Text (CSV, JSON, HTML) or bytes (zipped backup, PDF). */
+  readonly content: string | Uint8Array;
+  /** Dialog filter, e.g. { name: 'CSV', extensions: ['csv'] }. */
+  readonly filter: { readonly name: string; readonly extensions: readonly string[] };
+}
+
+export interface SaveResult {
+  readonly saved: boolean;
+  /** The file name (not the full path) written, for the confirmation message. */
+  readonly fileName?: string;
+}
+
+export interface AppInfo {
+  readonly version: string;
+  readonly platform: string;
+  readonly electron: string;
+}
+
+export interface PdfRequest {
+  readonly suggestedName: string;
+}
+
+/** Channels the renderer invokes and main answers. */
+export interface IpcContract {
+  'statements:open': { request: null; response: OpenedFile[] };
+  'file:save': { request: SaveRequest; response: SaveResult };
+  'report:pdf': { request: PdfRequest; response: SaveResult };
+  'app:info': { request: null; response: AppInfo };
+}
+
+export type IpcChannel = keyof IpcContract;
+
+/** Commands the application menu sends to the renderer on channel `menu:command`. */
+export const MENU_COMMANDS = [
+  'import-statements',
+  'new-workspace',
+  'show-accounts',
+  'show-transactions',
+  'show-recurring',
+  'show-forecast',
+  'show-patterns',
+  'show-scenarios',
+  'show-report',
+  'export-backup',
+  'restore-backup',
+  'print-report',
+] as const;
+export type MenuCommand = (typeof MENU_COMMANDS)[number];
+export const MENU_CHANNEL = 'menu:command';
+
+/** Method names of `window.ebbline` and the channel each one invokes. */
+export const API_METHODS = {
+  openStatements: 'statements:open',
+  saveFile: 'file:save',
+  saveReportPdf: 'report:pdf',
+  appInfo: 'app:info',
+} as const satisfies Record<string, IpcChannel>;
+
+type Invoker<C extends IpcChannel> = IpcContract[C]['request'] extends null
+  ? () => Promise<IpcContract[C]['response']>
+  : (request: IpcContract[C]['request']) => Promise<IpcContract[C]['response']>;
+
+/** The API the preload exposes as `window.ebbline`, derived from the contract. */
+export type EbblineApi = { readonly [M in keyof typeof API_METHODS]: Invoker<(typeof API_METHODS)[M]> } & {
+  /** Subscribes to menu commands; returns the unsubscribe function. */
+  readonly onMenuCommand: (listener: (command: MenuCommand) => void) => () => void;
+};
+
+/** Thrown (and reported to the renderer as a rejected promise) for a malformed payload. */
+export class PayloadError extends Error {
+  constructor(channel: string, problem: string) {
+    super(`${channel}: ${problem}`);
+    this.name = 'PayloadError';
+  }
+}
+
+function isRecord(x: unknown): x is Record<string, unknown> {
+  return typeof x === 'object' && x !== null && !Array.isArray(x);
+}
+
+const SAFE_FILE_NAME = /^[^/\\:*?"<>|\u0000-\u001f]{1,200}$/;
+const MAX_SAVE_BYTES = 512 * 1024 * 1024;
+
+function fileName(channel: string, x: unknown): string {
+  if (typeof x !== 'string' || !SAFE_FILE_NAME.test(x) || x === '.' || x === '..') {
+    throw new PayloadError(channel, 'suggestedName must be a plain file name without folders');
+  }
+  return x;
+}
+
+/** Validators per channel: each returns the typed request or throws PayloadError. */
+export const REQUEST_VALIDATORS: { readonly [C in IpcChannel]: (payload: unknown) => IpcContract[C]['request'] } = {
+  'statements:open': (p) => {
+    if (p !== null && p !== undefined) throw new PayloadError('statements:open', 'takes no payload');
+    return null;
+  },
+  'app:info': (p) => {
+    if (p !== null && p !== undefined) throw new PayloadError('app:info', 'takes no payload');
+    return null;
+  },
+  'file:save': (p) => {
+    const c = 'file:save';
+    if (!isRecord(p)) throw new PayloadError(c, 'expected an object');
+    const suggestedName = fileName(c, p.suggestedName);
+    const content = p.content;
+    if (typeof content !== 'string' && !(content instanceof Uint8Array)) {
+      throw new PayloadError(c, 'content must be text or bytes');
+    }
+    const size = typeof content === 'string' ? content.length * 3 : content.byteLength;
+    if (size > MAX_SAVE_BYTES) throw new PayloadError(c, 'content is larger than 512 MiB');
+    const filter = p.filter;
+    if (
+      !isRecord(filter) ||
+      typeof filter.name !== 'string' ||
+      !Array.isArray(filter.extensions) ||
+      !filter.extensions.every((e) => typeof e === 'string' && /^[a-z0-9]{1,8}$/i.test(e))
+    ) {
+      throw new PayloadError(c, 'filter must be { name, extensions: ["csv", …] }');
+    }
+    return { suggestedName, content, filter: { name: filter.name, extensions: filter.extensions as string[] } };
+  },
+  'report:pdf': (p) => {
+    const c = 'report:pdf';
+    if (!isRecord(p)) throw new PayloadError(c, 'expected an object');
+    return { suggestedName: fileName(c, p.suggestedName) };
+  },
+};
