@@ -1,10 +1,15 @@
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
+import globals from 'globals';
 
 export default tseslint.config(
   { ignores: ['node_modules/**', 'dist/**', 'build/**', 'release/**', 'test-results/**', 'playwright-report/**', '**/*.svelte'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
+  {
+    files: ['bin/**/*.mjs', 'test/**/*.mjs', '*.config.js', 'renderer/*.config.js'],
+    languageOptions: { globals: { ...globals.node } },
+  },
   {
     rules: {
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],

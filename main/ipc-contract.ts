@@ -93,11 +93,13 @@ function isRecord(x: unknown): x is Record<string, unknown> {
   return typeof x === 'object' && x !== null && !Array.isArray(x);
 }
 
-const SAFE_FILE_NAME = /^[^/\\:*?"<>|\u0000-\u001f]{1,200}$/;
+// Printable characters only, no folder separators or characters Windows forbids in names.
+const SAFE_FILE_NAME = /^[^/\\:*?"<>|]{1,200}$/;
+const hasControlCharacter = (s: string) => [...s].some((ch) => ch.charCodeAt(0) < 0x20);
 const MAX_SAVE_BYTES = 512 * 1024 * 1024;
 
 function fileName(channel: string, x: unknown): string {
-  if (typeof x !== 'string' || !SAFE_FILE_NAME.test(x) || x === '.' || x === '..') {
+  if (typeof x !== 'string' || !SAFE_FILE_NAME.test(x) || hasControlCharacter(x) || x === '.' || x === '..') {
     throw new PayloadError(channel, 'suggestedName must be a plain file name without folders');
   }
   return x;
