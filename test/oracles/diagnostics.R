@@ -218,14 +218,15 @@ for (s in all_series) {
       r <- suppressWarnings(adf.test(x, k = k))
       call <- sprintf("tseries::adf.test(%s, k = %d)", s$expr, k)
     }
-    adf_tseries[[length(adf_tseries) + 1]] <- list(
+    entry <- list(
       name = s$name,
-      k = if (is.null(k)) NULL else k,
       call = call,
       statistic = unname(r$statistic),
       lag = unname(r$parameter),
       pValueTable = r$p.value
     )
+    if (!is.null(k)) entry$k <- k # absent: adf.test's default k = trunc((n - 1)^(1/3))
+    adf_tseries[[length(adf_tseries) + 1]] <- entry
   }
   max_lag <- trunc(12 * (n / 100)^0.25)
   for (type in c("drift", "trend")) {
