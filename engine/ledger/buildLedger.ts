@@ -1,0 +1,372 @@
+/**
+ * Builds the ledger from importer results: matches accounts across files, removes entries
+ * repeated by overlapping files, collects balance anchors and reconciles them.
+ *
+ * Accounts: a statement's identifier (IBAN / account number, normalised by
+ * engine/ledger/normaliseIdentifier.ts) and currency pick the account; a statement without
+ * identifier goes to `options.account`, else to its own name, else to an account named after
+ * its file (base name). Duplicates: engine/ledger/duplicateIndex.ts (bank ids first, then
+ * content fingerprints that keep genuinely repeated transactions). Files are taken in the
+ * order given: "earlier" means earlier in that list. Pending entries are left out and
+ * reported as notices. Balances: engine/ledger/reconcileAccount.ts.
+ *
+ * Complexity: O(n log n) for n entries.
+ */
+import { toDayNumber } from '../core/dates';
+import { EngineError } from '../core/errors';
+import { exponentOf, formatMinor } from '../core/money';
+import { hasErrors } from '../import/types';
+import type { AccountKind, ImportProblem, ImportResult, ParsedStatement, StatementEntry } from '../import/types';
+import { createDuplicateIndex, findDuplicates, recordFile, type DuplicateCandidate } from './duplicateIndex';
+import { entryFingerprint } from './fingerprint';
+import { identifierKeys, normaliseIdentifier } from './normaliseIdentifier';
+import { anchorEndDay, reconcileAccount } from './reconcileAccount';
+import { checkStatement, statementBalances } from './statementCheck';
+import type {
+  BalanceAnchor,
+  FileAccountReport,
+  Ledger,
+  LedgerAccount,
+  LedgerFileReport,
+  LedgerTransaction,
+  StatementCheck,
+} from './types';
+
+/** One imported file as the ledger takes it. */
+export interface LedgerInputFile {
+  readonly file: string;
+  readonly result: ImportResult;
+}
+
+/** Choices for statements that do not say everything themselves. */
+export interface BuildLedgerOptions {
+  /** Account (name or identifier) for statements without an account identifier. */
+  readonly account?: string;
+  /** Currency for statements that state none. */
+  readonly currency?: string;
+}
+
+interface MutableAccount {
+  id: string;
+  name: string;
+  currency: string;
+  identifiers: string[];
+  kind: AccountKind;
+  kindStated: boolean;
+  order: number;
+}
+
+interface FileAccumulator {
+  accountId: string;
+  currency: string;
+  from: string | null;
+  to: string | null;
+  entries: number;
+  duplicates: number;
+  pending: number;
+  net: number;
+  /** (first day, statement index, opening) of the earliest statement, (last day, index, closing) of the latest. */
+  earliest: { day: number; opening: number | null } | null;
+  latest: { day: number; closing: number | null } | null;
+}
+
+function groupBy<T>(items: readonly T[], key: (item: T) => string): Map<string, T[]> {
+  const groups = new Map<string, T[]>();
+  for (const item of items) {
+    const k = key(item);
+    const list = groups.get(k);
+    if (list) list.push(item);
+    else groups.set(k, [item]);
+  }
+  return groups;
+}
+
+function baseName(file: string): string {
+  const parts = file.split(/[\\/]/);
+  return parts[parts.length - 1] || file;
+}
+
+function statementSpan(statement: ParsedStatement): { first: number; last: number } | null {
+  let first = Number.POSITIVE_INFINITY;
+  let last = Number.NEGATIVE_INFINITY;
+  const see = (date: string | undefined) => {
+    if (date === undefined) return;
+    const d = toDayNumber(date);
+    if (d < first) first = d;
+    if (d > last) last = d;
+  };
+  see(statement.from);
+  see(statement.to);
+  if (statement.from === undefined || statement.to === undefined) {
+    for (const e of statement.entries) see(e.bookingDate);
+    for (const b of statement.balances) if (b.kind !== 'available') see(b.date);
+  }
+  return Number.isFinite(first) ? { first, last } : null;
+}
+
+function minDate(a: string | null, b: string | null): string | null {
+  if (a === null) return b;
+  if (b === null) return a;
+  return a < b ? a : b;
+}
+
+function maxDate(a: string | null, b: string | null): string | null {
+  if (a === null) return b;
+  if (b === null) return a;
+  return a > b ? a : b;
+}
+
+/**
+ * Builds a ledger from importer results, in the order given.
+ *
+ * @param files importer results; none may carry an `error` problem (an import is
+ *   all-or-nothing: the caller refuses the run before building a ledger).
+ * @throws EngineError INVALID_ARGUMENT for a result with errors or a statement without a
+ *   currency when `options.currency` is not given; UNKNOWN_CURRENCY for a code outside
+ *   ISO 4217; INVALID_DATE / INVALID_AMOUNT for entries an importer should have refused.
+ * @example
+ * const ledger = buildLedger([{ file: 'jan.xml', result }]);
+ * ledger.reconciliation[0].reconciled // true when the stated balances agree
+ */
+export function buildLedger(files: readonly LedgerInputFile[], options: BuildLedgerOptions = {}): Ledger {
+  for (const { file, result } of files) {
+    if (hasErrors(result)) {
+      throw new EngineError('INVALID_ARGUMENT', `${file}: has errors; an import with errors cannot build a ledger`);
+    }
+  }
+  const accounts: MutableAccount[] = [];
+  const byKey = new Map<string, MutableAccount>();
+  const usedIds = new Set<string>();
+  const index = createDuplicateIndex();
+  const occurrences = new Map<string, number>();
+  const transactions: { t: LedgerTransaction; account: number; day: number; seq: number }[] = [];
+  const anchors: { a: BalanceAnchor; account: number; end: number; seq: number }[] = [];
+  const anchorKeys = new Set<string>();
+  const statements: StatementCheck[] = [];
+  const fileReports: LedgerFileReport[] = [];
+
+  const newAccount = (preferredId: string, currency: string, name: string, kind: AccountKind | undefined) => {
+    let id = preferredId;
+    if (usedIds.has(id)) id = `${preferredId} ${currency}`;
+    for (let n = 2; usedIds.has(id); n++) id = `${preferredId} ${currency} ${n}`;
+    usedIds.add(id);
+    const account: MutableAccount = {
+      id,
+      name,
+      currency,
+      identifiers: [],
+      kind: kind ?? 'current',
+      kindStated: kind !== undefined,
+      order: accounts.length,
+    };
+    accounts.push(account);
+    return account;
+  };
+
+  const resolveAccount = (statement: ParsedStatement, file: string, currency: string): MutableAccount => {
+    const identifier = statement.account.identifier?.trim();
+    const label = identifier ? undefined : (options.account ?? statement.account.name ?? baseName(file));
+    const keys = identifierKeys(identifier ?? (label as string));
+    let account: MutableAccount | undefined;
+    for (const k of keys) {
+      account = byKey.get(`${k}|${currency}`);
+      if (account) break;
+    }
+    if (!account) {
+      account = identifier
+        ? newAccount(
+            normaliseIdentifier(identifier) || identifier,
+            currency,
+            statement.account.name ?? normaliseIdentifier(identifier),
+            statement.account.kind,
+          )
+        : newAccount(label as string, currency, label as string, statement.account.kind);
+    }
+    for (const k of keys) byKey.set(`${k}|${currency}`, account);
+    if (identifier) {
+      const normal = normaliseIdentifier(identifier);
+      if (normal !== '' && !account.identifiers.includes(normal)) account.identifiers.push(normal);
+    }
+    if (!account.kindStated && statement.account.kind !== undefined) {
+      account.kind = statement.account.kind;
+      account.kindStated = true;
+    }
+    return account;
+  };
+
+  let seq = 0;
+  for (const { file, result } of files) {
+    const perAccount = new Map<string, FileAccumulator>();
+    const notices: ImportProblem[] = [];
+    const candidates: DuplicateCandidate[] = [];
+    const pendingEntries: { entry: StatementEntry; account: MutableAccount; fingerprint: string }[] = [];
+
+    result.statements.forEach((statement, statementIndex) => {
+      const currency = statement.currency || options.currency;
+      if (!currency) {
+        throw new EngineError('INVALID_ARGUMENT', `${file}: statement ${statementIndex + 1} states no currency`);
+      }
+      const exponent = exponentOf(currency);
+      const account = resolveAccount(statement, file, currency);
+      statements.push(checkStatement(file, statementIndex, account.id, statement));
+
+      let acc = perAccount.get(account.id);
+      if (!acc) {
+        acc = {
+          accountId: account.id,
+          currency,
+          from: null,
+          to: null,
+          entries: 0,
+          duplicates: 0,
+          pending: 0,
+          net: 0,
+          earliest: null,
+          latest: null,
+        };
+        perAccount.set(account.id, acc);
+      }
+      const span = statementSpan(statement);
+      const { opening, closing } = statementBalances(statement);
+      if (span) {
+        if (acc.earliest === null || span.first < acc.earliest.day) acc.earliest = { day: span.first, opening };
+        if (acc.latest === null || span.last >= acc.latest.day) acc.latest = { day: span.last, closing };
+      }
+      acc.from = minDate(acc.from, statement.from ?? null);
+      acc.to = maxDate(acc.to, statement.to ?? null);
+
+      for (const balance of statement.balances) {
+        if (!Number.isSafeInteger(balance.amount)) {
+          throw new EngineError(
+            'INVALID_AMOUNT',
+            `${file}: balance of ${balance.date} is not a whole number of minor units`,
+          );
+        }
+        const a: BalanceAnchor = {
+          accountId: account.id,
+          date: balance.date,
+          at: balance.at,
+          amount: balance.amount,
+          kind: balance.kind,
+          sourceFile: file,
+          source: balance.source,
+        };
+        const key = `${a.accountId}|${a.date}|${a.at}|${a.kind}|${a.amount}`;
+        if (anchorKeys.has(key)) continue;
+        anchorKeys.add(key);
+        anchors.push({ a, account: account.order, end: anchorEndDay(a), seq: seq++ });
+      }
+
+      for (const entry of statement.entries) {
+        if (!Number.isSafeInteger(entry.amount)) {
+          throw new EngineError(
+            'INVALID_AMOUNT',
+            `${file}: entry of ${entry.bookingDate} is not a whole number of minor units`,
+          );
+        }
+        toDayNumber(entry.bookingDate); // throws INVALID_DATE for a date an importer let through
+        if (acc.from === null || entry.bookingDate < acc.from) acc.from = entry.bookingDate;
+        if (acc.to === null || entry.bookingDate > acc.to) acc.to = entry.bookingDate;
+        if (entry.status !== 'booked') {
+          acc.pending++;
+          notices.push({
+            file,
+            ...(entry.source.line !== undefined ? { line: entry.source.line } : {}),
+            ...(entry.source.element !== undefined ? { element: entry.source.element } : {}),
+            message: `pending entry of ${entry.bookingDate} (${formatMinor(entry.amount, exponent)} ${currency}) left out: only booked entries count`,
+            severity: 'notice',
+          });
+          continue;
+        }
+        acc.net += entry.amount;
+        const fingerprint = entryFingerprint(entry);
+        candidates.push({
+          accountId: account.id,
+          fingerprint,
+          ...(entry.bankRef !== undefined ? { bankRef: entry.bankRef } : {}),
+        });
+        pendingEntries.push({ entry, account, fingerprint });
+      }
+    });
+
+    const duplicateOf = findDuplicates(index, candidates);
+    const ids: string[] = [];
+    const kept: boolean[] = [];
+    pendingEntries.forEach(({ entry, account, fingerprint }, i) => {
+      const acc = perAccount.get(account.id) as FileAccumulator;
+      const earlier = duplicateOf[i];
+      if (earlier !== null && earlier !== undefined) {
+        acc.duplicates++;
+        ids.push(earlier);
+        kept.push(false);
+        return;
+      }
+      acc.entries++;
+      const occKey = `${account.id}|${fingerprint}`;
+      const occurrence = (occurrences.get(occKey) ?? 0) + 1;
+      occurrences.set(occKey, occurrence);
+      const id = `${account.id}|${fingerprint}|${occurrence}`;
+      ids.push(id);
+      kept.push(true);
+      transactions.push({
+        t: {
+          ...entry,
+          id,
+          accountId: account.id,
+          currency: account.currency,
+          fingerprint,
+          sourceFile: file,
+          occurrence,
+        },
+        account: account.order,
+        day: toDayNumber(entry.bookingDate),
+        seq: seq++,
+      });
+    });
+    recordFile(index, candidates, ids, kept);
+
+    const accountReports: FileAccountReport[] = [...perAccount.values()].map((acc) => ({
+      accountId: acc.accountId,
+      currency: acc.currency,
+      from: acc.from,
+      to: acc.to,
+      entries: acc.entries,
+      duplicates: acc.duplicates,
+      pending: acc.pending,
+      opening: acc.earliest?.opening ?? null,
+      closing: acc.latest?.closing ?? null,
+      net: acc.net,
+    }));
+    fileReports.push({
+      file,
+      format: result.format,
+      accounts: accountReports,
+      problems: [...result.problems, ...notices],
+    });
+  }
+
+  transactions.sort((x, y) => x.account - y.account || x.day - y.day || x.seq - y.seq);
+  anchors.sort((x, y) => x.account - y.account || x.end - y.end || x.seq - y.seq);
+  const ledgerAccounts: LedgerAccount[] = accounts.map((a) => ({
+    id: a.id,
+    name: a.name,
+    currency: a.currency,
+    identifiers: [...a.identifiers],
+    kind: a.kind,
+  }));
+  const txs = transactions.map((x) => x.t);
+  const anchorList = anchors.map((x) => x.a);
+  const txByAccount = groupBy(txs, (t) => t.accountId);
+  const anchorsByAccount = groupBy(anchorList, (a) => a.accountId);
+  const reconciliation = ledgerAccounts.map((account) =>
+    reconcileAccount(account.id, txByAccount.get(account.id) ?? [], anchorsByAccount.get(account.id) ?? []),
+  );
+  return {
+    accounts: ledgerAccounts,
+    transactions: txs,
+    anchors: anchorList,
+    files: fileReports,
+    reconciliation,
+    statements,
+  };
+}
