@@ -151,6 +151,19 @@ write_fixture(list(
   )
 ), "neldermead.json")
 
+# --- decomposition + ETS (forecast's stlf: ETS on the seasonally adjusted series) ----
+dec <- mstl(USAccDeaths, s.window = 13)
+seasonal_usa <- rowSums(dec[, grep("Seasonal", colnames(dec)), drop = FALSE])
+stl_fc <- stlf(USAccDeaths, h = 24, s.window = 13, etsmodel = "AZN", level = c(80, 95))
+write_fixture(list(
+  source = "R 4.2.2, forecast 8.20 (Debian); script test/oracles/ets.R",
+  call = "dec <- mstl(USAccDeaths, s.window = 13); seasonal <- rowSums(dec[, grep(\"Seasonal\", colnames(dec)), drop = FALSE]); f <- stlf(USAccDeaths, h = 24, s.window = 13, etsmodel = \"AZN\", level = c(80, 95))",
+  y = arr(USAccDeaths), period = 12, seasonal = arr(seasonal_usa),
+  method = stl_fc$method, etsMethod = stl_fc$model$method, etsAicc = stl_fc$model$aicc,
+  mean = arr(stl_fc$mean), lower80 = arr(stl_fc$lower[, 1]), upper80 = arr(stl_fc$upper[, 1]),
+  lower95 = arr(stl_fc$lower[, 2]), upper95 = arr(stl_fc$upper[, 2])
+), "decomposition_ets.json")
+
 # --- HoltWinters: smoothing recursions with R's own start values --------------------
 hw_case <- function(name, call_text, x) {
   hw <- eval(parse(text = call_text))
