@@ -265,8 +265,10 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
           );
         }
         toDayNumber(entry.bookingDate); // throws INVALID_DATE for a date an importer let through
-        if (acc.from === null || entry.bookingDate < acc.from) acc.from = entry.bookingDate;
-        if (acc.to === null || entry.bookingDate > acc.to) acc.to = entry.bookingDate;
+        if (entry.status === 'booked') {
+          if (acc.from === null || entry.bookingDate < acc.from) acc.from = entry.bookingDate;
+          if (acc.to === null || entry.bookingDate > acc.to) acc.to = entry.bookingDate;
+        }
         if (entry.status !== 'booked') {
           acc.pending++;
           notices.push({
