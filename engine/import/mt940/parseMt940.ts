@@ -297,7 +297,7 @@ function readStatement(fields: readonly Mt940Field[], problems: LineProblem[]): 
 
 /**
  * Parses MT940 text. Never throws; every problem names its line.
- * @example parseMt940(':20:X\n:25:NL91ABNA0417164300\n:28C:1\n:60F:C250131EUR0,\n:62F:C250131EUR0,').statements.length // 1
+ * @example parseMt940(':20:X\n:25:GB82WEST12345698765432\n:28C:1\n:60F:C250131EUR0,\n:62F:C250131EUR0,').statements.length // 1
  * @example parseMt940('hello').problems[0]?.severity // 'error'
  */
 export function parseMt940(text: string): Mt940ParseResult {
