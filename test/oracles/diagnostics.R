@@ -177,6 +177,34 @@ lb_cases[[length(lb_cases) + 1]] <- list(
 write_fixture(list(versions = versions, cases = lb_cases), "ljungBox.json")
 
 # ---------------------------------------------------------------------------------------
+# White-noise verdict ingredients: Ljung-Box at the default lag of engine/stats/whiteNoise.ts
+# (min(2 * frequency, n / 5) for seasonal data, min(10, n / 5) otherwise; Hyndman and
+# Athanasopoulos, FPP3 section 5.4), the lags outside the 95% band and the binomial chance
+# of that many outside for white noise.
+# ---------------------------------------------------------------------------------------
+wn_cases <- lapply(all_series, function(s) {
+  x <- s$x
+  n <- length(x)
+  f <- frequency(x)
+  h <- max(1, min(if (f > 1) 2 * f else 10, floor(n / 5)))
+  r <- drop(acf(x, lag.max = h, plot = FALSE)$acf)[-1]
+  band <- qnorm(0.975) / sqrt(n)
+  outside <- which(abs(r) > band)
+  list(
+    name = s$name,
+    lag = h,
+    call = sprintf(paste0(
+      "h <- %d; Box.test(%s, lag = h, type = \"Ljung-Box\")$p.value; ",
+      "r <- acf(%s, h, plot = FALSE)$acf[-1]; o <- which(abs(r) > qnorm(0.975)/sqrt(%d)); ",
+      "pbinom(length(o) - 1, h, 0.05, lower.tail = FALSE)"), h, s$expr, s$expr, n),
+    pValue = Box.test(x, lag = h, type = "Ljung-Box")$p.value,
+    lagsOutside = I(outside),
+    chanceOfThatManyOutside = if (length(outside) == 0) 1 else pbinom(length(outside) - 1, h, 0.05, lower.tail = FALSE)
+  )
+})
+write_fixture(list(versions = versions, cases = unname(wn_cases)), "whiteNoise.json")
+
+# ---------------------------------------------------------------------------------------
 # Differencing.
 # ---------------------------------------------------------------------------------------
 diff_cases <- list()
@@ -311,16 +339,30 @@ nsdiffs_cases <- list()
 for (s in all_series) {
   x <- s$x
   if (frequency(x) > 1 && length(x) > 2 * frequency(x)) {
+    # seas.heuristic measures strength on mstl(x); its components are stored so the
+    # strength formula can be checked without a decomposition in the test.
+    fit <- mstl(x)
     nsdiffs_cases[[length(nsdiffs_cases) + 1]] <- list(
       name = s$name,
       frequency = frequency(x),
-      call = sprintf("forecast::nsdiffs(%s); forecast:::seas.heuristic(%s)", s$expr, s$expr),
+      call = sprintf("forecast::nsdiffs(%s); forecast:::seas.heuristic(%s); forecast::mstl(%s)", s$expr, s$expr, s$expr),
       value = nsdiffs(x),
-      seasonalStrength = forecast:::seas.heuristic(x)
+      seasonalStrength = forecast:::seas.heuristic(x),
+      mstlSeasonal = as.numeric(fit[, grep("Season", colnames(fit))[1]]),
+      mstlRemainder = as.numeric(fit[, "Remainder"])
     )
   }
 }
-write_fixture(list(versions = versions, ndiffs = ndiffs_cases, nsdiffs = nsdiffs_cases), "ndiffs.json")
+is_constant_inputs <- list(
+  c(5, 5, 5), c(1e6, 1e6 + 1e-4), c(1e6, 1e6 + 1e-2), c(1e6, 1e6 + 0.1), c(0, 1e-10, 0), c(0, 1e-7),
+  c(1, 1 + 1e-8, 1 - 1e-8), c(1, 1 + 2e-8), c(1, 2), c(-3, -3 - 3e-8, -3), c(0.1, 0.1, 0.1)
+)
+is_constant_cases <- lapply(is_constant_inputs, function(x) list(
+  x = I(x),
+  call = sprintf("forecast:::is.constant(c(%s))", paste(sprintf("%.17g", x), collapse = ", ")),
+  value = forecast:::is.constant(x)
+))
+write_fixture(list(versions = versions, ndiffs = ndiffs_cases, nsdiffs = nsdiffs_cases, isConstant = is_constant_cases), "ndiffs.json")
 
 # ---------------------------------------------------------------------------------------
 # Distributions: pchisq, pgamma, pnorm, qnorm, lgamma.
