@@ -6,7 +6,8 @@ import {
   projectCalendarMonthly,
 } from '../../engine/decompose/calendarSeasonality';
 import { EngineError } from '../../engine/core/errors';
-import { addDays, daysBetween } from '../../engine/core/dates';
+import fc from 'fast-check';
+import { addDays, civilFromDays, daysBetween, daysInMonth, fromDayNumber } from '../../engine/core/dates';
 import { maxAbsDiff, syntheticDaily } from './syntheticDaily';
 
 function detrended(series: { y: Float64Array; trend: Float64Array }): Float64Array {
@@ -188,5 +189,38 @@ describe('calendar-monthly preconditions', () => {
   it('returns a zero component for an all-zero input, never NaN', () => {
     const fit = fitCalendarMonthly(r, '2024-01-01');
     expect(fit.component.every((v) => v === 0 || Math.abs(v) < 1e-12)).toBe(true);
+  });
+});
+
+describe('projectCalendarMonthly properties', () => {
+  it('sums to zero over every whole calendar month for any profile and start date', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.double({ min: -1000, max: 1000, noNaN: true }), {
+          minLength: CALENDAR_DAY_BUCKETS,
+          maxLength: CALENDAR_DAY_BUCKETS,
+        }),
+        fc.double({ min: -1000, max: 1000, noNaN: true }),
+        fc.integer({ min: daysBetween('1970-01-01', '1899-01-01'), max: daysBetween('1970-01-01', '2100-01-01') }),
+        (effects, gamma, startDay) => {
+          const start = fromDayNumber(startDay);
+          const fit = { dayEffects: Float64Array.from(effects), lastBusinessDayEffect: gamma };
+          const values = projectCalendarMonthly(fit, start, 400);
+          let i = 0;
+          while (i < values.length) {
+            const { year, month, day } = civilFromDays(startDay + i);
+            const length = daysInMonth(year, month);
+            const inMonth = Math.min(length - day + 1, values.length - i);
+            if (day === 1 && inMonth === length) {
+              const sum = values.subarray(i, i + length).reduce((a, b) => a + b, 0);
+              if (Math.abs(sum) > 1e-9 * 1000 * length) return false;
+            }
+            i += inMonth;
+          }
+          return true;
+        },
+      ),
+      { numRuns: 200, seed: 20240229 },
+    );
   });
 });
