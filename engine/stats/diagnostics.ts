@@ -23,7 +23,7 @@ export interface SeriesDiagnosticsOptions {
   readonly maxLag?: number;
   /** Coverage of the bands. Default 0.95. */
   readonly level?: number;
-  /** Significance level of every test. Default 0.05. */
+  /** Significance level of every test. Default 0.05; ndiffs clamps it to [0.01, 0.1], the range of the KPSS table. */
   readonly alpha?: number;
   /** Spacing of the observations, for the wording. Default `'day'`. */
   readonly unit?: TimeUnit;
