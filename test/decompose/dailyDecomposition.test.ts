@@ -120,6 +120,15 @@ describe('decomposeDaily with short histories', () => {
     expect(next.yearly.every((v) => v === 0)).toBe(true);
   });
 
+  it('keeps one-off spikes out of the weekly pattern when robust', () => {
+    const s = syntheticDaily({ start: '2024-01-01', days: 365, seed: 21, noiseSd: 2, weekly: true });
+    const y = s.y.slice();
+    for (const day of [40, 41, 150, 220, 300]) y[day] = (y[day] as number) + 4000; // invented one-off receipts
+    const plain = decomposeDaily(y, '2024-01-01');
+    const robust = decomposeDaily(y, '2024-01-01', { robust: true });
+    expect(rmse(robust.weekly, s.weekly)).toBeLessThan(rmse(plain.weekly, s.weekly) / 2);
+  });
+
   it('throws stable codes for bad input', () => {
     expect(codeOf(() => decomposeDaily(new Float64Array(14), '2024-01-01'))).toBe('NOT_ENOUGH_DATA');
     expect(codeOf(() => decomposeDaily([...new Array(20).fill(1), Number.NaN], '2024-01-01'))).toBe('INVALID_ARGUMENT');
