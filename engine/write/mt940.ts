@@ -95,7 +95,7 @@ export function mt940Reference(text: string | undefined): string | undefined {
  * when a space before the offending character is kept at the start of the next line, the
  * text is unchanged. Only a run of more than 64 characters without a space that must be
  * cut before `:` or `-` gets a space inserted (the one lossy case).
- * @example wrapField86('a'.repeat(70)) // ['aaaa…(65)', 'aaaaa']
+ * @example wrapField86('a'.repeat(70)).map((line) => line.length) // [65, 5]
  */
 export function wrapField86(text: string): string[] {
   const width = FIELD_86_LINE_LENGTH;
@@ -239,7 +239,8 @@ function statementLines(statement: ParsedStatement, index: number): string[] {
     `:60F:${balanceText(opening.amount, opening.date, currency)}`,
   ];
   for (const entry of statement.entries) {
-    lines.push(statementLine(entry, currency), ...field86(entry));
+    lines.push(statementLine(entry, currency));
+    for (const line of field86(entry)) lines.push(line);
   }
   lines.push(`:62F:${balanceText(closing.amount, closing.date, currency)}`);
   const available = statement.balances.filter((b) => b.kind === 'available');
@@ -268,9 +269,9 @@ function statementLines(statement: ParsedStatement, index: number): string[] {
 export function writeMt940(statements: readonly ParsedStatement[], options: WriteMt940Options = {}): string {
   const out: string[] = [];
   statements.forEach((statement, index) => {
-    const lines = statementLines(statement, index);
-    if (options.blockWrappers) out.push(wrapperHeader(statement), ...lines, '-}');
-    else out.push(...lines, '-');
+    if (options.blockWrappers) out.push(wrapperHeader(statement));
+    for (const line of statementLines(statement, index)) out.push(line);
+    out.push(options.blockWrappers ? '-}' : '-');
   });
   return out.map((line) => `${line}\r\n`).join('');
 }

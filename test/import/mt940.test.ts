@@ -71,7 +71,7 @@ describe('two wrapped messages (CRLF)', () => {
 
   it('dates an entry booked in the previous year (value 3 Jan, entry 1231)', () => {
     // Source: SWIFT User Handbook, Category 9, MT940, field 61, subfield 2 (entry date MMDD)
-    const kiln = result.statements[1]?.entries[0];
+    const kiln = result.statements[0]?.entries[2];
     expect(kiln).toMatchObject({
       bookingDate: '2024-12-31',
       valueDate: '2025-01-03',
@@ -105,18 +105,31 @@ describe('two wrapped messages (CRLF)', () => {
       amount: 250000,
       source: { line: 5 },
     });
-    // Dated on the day of the first (back-dated) booking: the balance is read as the start of that day.
-    expect(s2?.balances[0]).toMatchObject({ kind: 'opening', date: '2025-01-02', at: 'start' });
-    expect(s1?.from).toBe('2024-12-30');
-    expect(s1?.to).toBe('2025-01-02');
+    expect(s2?.balances[0]).toEqual({
+      kind: 'opening',
+      date: '2025-01-02',
+      at: 'end',
+      amount: 157460,
+      source: { line: 21 },
+    });
+    expect([s1?.from, s1?.to, s2?.from, s2?.to]).toEqual(['2024-12-30', '2025-01-02', '2025-01-03', '2025-01-03']);
+  });
+
+  it('emits the opening balance at the start of its day when a bank dates it with the first entry day', () => {
+    // Common practice, no source: some banks date 60F with the first day of the statement rather than the previous closing day
+    const r = parse(statement({ '60F': ':60F:C250203EUR100,00' }));
+    expect(r.statements[0]?.balances[0]).toMatchObject({ kind: 'opening', date: '2025-02-03', at: 'start' });
+    expect(r.statements[0]?.from).toBe('2025-02-03');
+    const empty = parse(statement({ '60F': ':60F:C250203EUR87,50', '61': null, '86': null }));
+    expect(empty.statements[0]?.balances[0]).toMatchObject({ date: '2025-02-03', at: 'start' });
   });
 
   it('reads 62F as closing and 64/65 as available', () => {
     // Source: SWIFT User Handbook, Category 9, MT940, fields 62a (closing balance), 64 (closing available balance), 65 (forward available balance)
     expect(result.statements[0]?.balances.slice(1)).toEqual([
-      { kind: 'closing', date: '2025-01-02', at: 'end', amount: 162050, source: { line: 11 } },
-      { kind: 'available', date: '2025-01-02', at: 'end', amount: 162050, source: { line: 12 } },
-      { kind: 'available', date: '2025-01-03', at: 'end', amount: 162050, source: { line: 13 } },
+      { kind: 'closing', date: '2025-01-02', at: 'end', amount: 157460, source: { line: 13 } },
+      { kind: 'available', date: '2025-01-02', at: 'end', amount: 157460, source: { line: 14 } },
+      { kind: 'available', date: '2025-01-03', at: 'end', amount: 157460, source: { line: 15 } },
     ]);
   });
 
@@ -132,7 +145,7 @@ describe('two wrapped messages (CRLF)', () => {
     expect(bare.problems).toEqual([]);
     expect(bare.statements).toEqual(result.statements);
     const oneLine = parse(text.replace(/\{4:\r\n:20:/g, '{4::20:'));
-    expect(oneLine.statements.map((s) => s.entries.length)).toEqual([2, 2]);
+    expect(oneLine.statements.map((s) => s.entries.length)).toEqual([3, 2]);
   });
 });
 
@@ -274,12 +287,12 @@ describe('problems', () => {
     // Source: SWIFT User Handbook, Category 9, MT940: 62a mandatory; Standards MT General Information: block 4 ends with -}
     const r = parse(fixture('truncated.sta'), 'truncated.sta');
     expect(errors(r).map((p) => [p.line, p.message])).toEqual([
-      [15, "block 4 opened on line 15 is not closed with '-}'; the file may be truncated"],
+      [17, "block 4 opened on line 17 is not closed with '-}'; the file may be truncated"],
       [
-        16,
-        'statement "TESS2501" (field 20, line 16): field 62F or 62M (closing balance) is missing; the file may be truncated',
+        18,
+        'statement "TESS2501" (field 20, line 18): field 62F or 62M (closing balance) is missing; the file may be truncated',
       ],
-      [20, 'field 61: amount "45" has no decimal comma, expected e.g. "45," (15d: the comma is mandatory)'],
+      [23, 'field 61: amount "74" has no decimal comma, expected e.g. "74," (15d: the comma is mandatory)'],
     ]);
   });
 

@@ -22,8 +22,6 @@
 
 /** Characters in one line of field 86 (6*65x). */
 export const FIELD_86_LINE_LENGTH = 65;
-/** Lines field 86 may have (6*65x). */
-export const FIELD_86_MAX_LINES = 6;
 /** Characters in one `?20`–`?29` purpose sub-field of the DFÜ layout. */
 const SUBFIELD_LENGTH = 27;
 

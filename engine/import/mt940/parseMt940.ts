@@ -71,8 +71,8 @@ function readBalance(field: Mt940Field | undefined, problems: LineProblem[]): Ba
   return { field, value };
 }
 
+/** Reads one `:20:` … group; `problems` collects this statement's problems only. */
 function readStatement(fields: readonly Mt940Field[], problems: LineProblem[]): ParsedStatement | undefined {
-  const errorsBefore = problems.filter((p) => p.severity === 'error').length;
   const head = fields[0] as Mt940Field;
   const statementId = fieldText(head).trim();
   if (statementId === '') problems.push(lineError(head.line, 'field 20: transaction reference is empty (16x)'));
@@ -144,7 +144,7 @@ function readStatement(fields: readonly Mt940Field[], problems: LineProblem[]): 
     } else if (tag === '86') {
       const last = lines[lines.length - 1];
       if (last && (previous.tag === '61' || (previous.tag === '86' && last.information.length > 0)) && !closing) {
-        last.information.push(...field.lines);
+        for (const l of field.lines) last.information.push(l);
       }
       // Field 86 after the balances informs about the statement as a whole: not kept.
     } else if (tag === '62F' || tag === '62M') {
@@ -231,7 +231,7 @@ function readStatement(fields: readonly Mt940Field[], problems: LineProblem[]): 
     }
   }
 
-  if (problems.filter((p) => p.severity === 'error').length > errorsBefore) return undefined;
+  if (problems.some((p) => p.severity === 'error')) return undefined;
   if (!openingBalance || !closingBalance || currency === undefined || !accountInfo) return undefined;
 
   const bookingDates = entries.map((e) => e.bookingDate).sort();
@@ -335,8 +335,10 @@ export function parseMt940(text: string): Mt940ParseResult {
     }
   }
   for (const fields of groups) {
-    const statement = readStatement(fields, problems);
+    const own: LineProblem[] = [];
+    const statement = readStatement(fields, own);
     if (statement) statements.push(statement);
+    for (const p of own) problems.push(p);
   }
   problems.sort((a, b) => a.line - b.line);
   return { statements, problems };

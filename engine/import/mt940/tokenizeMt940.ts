@@ -83,7 +83,7 @@ export function tokenizeMt940(text: string): Mt940Tokens {
   const physical = source.split(/\r\n|\r|\n/);
   for (let i = 0; i < physical.length; i++) {
     const lineNo = i + 1;
-    let rest: string | undefined = (physical[i] as string).replace(/\s+$/, '');
+    let rest: string | undefined = (physical[i] as string).trimEnd();
     // A line may close one message and open the next (`-}{5:…}{1:…}{2:…}{4:`).
     for (let guard = 0; rest !== undefined && guard < 1000; guard++) {
       let lineText: string = rest;
