@@ -18,6 +18,7 @@ export const MAX_OFX_PROBLEMS = 100;
  * How sure the content is OFX: 1 for an OFX 1.x header (`OFXHEADER:` at the start) or
  * an OFX 2.x processing instruction (`<?OFX`), 0.9 for a bare `<OFX>` body, 0 otherwise.
  *
+ * @throws Never.
  * @example sniffOfx('OFXHEADER:100\nDATA:OFXSGML') // 1
  * @example sniffOfx('Date;Amount') // 0
  */
@@ -37,6 +38,7 @@ export function sniffOfx(text: string): number {
  * what was found and what was expected, without the location, which the caller prints
  * (`FILE:LINE: message` or `FILE: element PATH: message`).
  *
+ * @throws Never: every failure, even an internal one, is returned as a problem.
  * @example parseOfx(text, { fileName: 'march.ofx' }).statements[0]?.currency // 'EUR'
  */
 export function parseOfx(text: string, options: ImportOptions): ImportResult {

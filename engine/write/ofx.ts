@@ -37,6 +37,7 @@ function fnv1a(text: string): string {
  * content and an occurrence number among entries with the same content, so the same
  * statement written twice gives the same FITIDs (and overlapping exports deduplicate).
  *
+ * @throws Never.
  * @example stableFitId({ bookingDate: '2024-03-01', amount: -500, description: 'Rent', status: 'booked', source: {} }, 1) // '20240301-…-1'
  */
 export function stableFitId(entry: StatementEntry, occurrence: number): string {

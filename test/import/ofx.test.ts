@@ -268,6 +268,20 @@ describe('OFX importer: corrections', () => {
     expect(r.problems.every((p) => p.severity === 'notice')).toBe(true);
   });
 
+  it('applies a correction to an entry of an earlier statement of the same account in the file', () => {
+    const first = sgmlStatement([GOOD_TRN, GOOD_TRN.replace('A1', 'A2')]);
+    const second = sgmlStatement([GOOD_TRN.replace('A1', 'B1') + '<CORRECTFITID>A2\n<CORRECTACTION>DELETE\n']);
+    const block = second.slice(second.indexOf('<STMTTRNRS>'), second.indexOf('</STMTTRNRS>') + '</STMTTRNRS>\n'.length);
+    const text = first.replace('</BANKMSGSRSV1>', block + '</BANKMSGSRSV1>');
+    const r = parse(text);
+    expect(errors(r)).toEqual([]);
+    expect(r.statements.map((st) => st.entries.map((e) => e.bankRef))).toEqual([['A1'], []]);
+    expect(r.problems[0]).toMatchObject({
+      element: `OFX/BANKMSGSRSV1/STMTTRNRS[2]/STMTRS/BANKTRANLIST/STMTTRN`,
+      message: `CORRECTACTION DELETE: deletes FITID "A2" (line ${lineOf(text, '<STMTTRN>', 2)}); both that entry and this record were left out`,
+    });
+  });
+
   it('refuses an unknown CORRECTACTION and a CORRECTACTION without CORRECTFITID', () => {
     const bad = parse(sgmlStatement([GOOD_TRN + '<CORRECTFITID>A0\n<CORRECTACTION>UNDO\n']));
     expect(errors(bad).map((p) => p.message)).toEqual(['"UNDO" is unknown, expected REPLACE or DELETE']);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { buildOfxTree, MAX_OFX_DEPTH, type OfxElement } from '../../engine/import/ofx/buildOfxTree';
+import { buildOfxTree, MAX_OFX_DEPTH, MAX_TREE_PROBLEMS, type OfxElement } from '../../engine/import/ofx/buildOfxTree';
 
 function tree(body: string) {
   return buildOfxTree(body, 0, 1);
@@ -43,6 +43,19 @@ describe('buildOfxTree', () => {
       ['EXT', ''],
       ['TAG', 'a<b&amp;'],
     ]);
+  });
+
+  it('numbers repeated siblings for element paths in problems, also among many different siblings', () => {
+    const many = Array.from({ length: 20 }, (_, i) => `<X${i}>v`).join('');
+    const t = tree(`<OFX><STMTTRN></STMTTRN><STMTTRN>${many}<STMTTRN>oops</STMTTRN></STMTTRN></OFX>`);
+    expect(t.problems[0]).toMatchObject({
+      element: 'OFX/STMTTRN[2]/STMTTRN',
+      message: expect.stringMatching(/"oops"/),
+    });
+    const wide = tree(`<OFX>${many}<X3>w<BANKTRANLIST>text</BANKTRANLIST></OFX>`);
+    expect(wide.problems[0]?.element).toBe('OFX/BANKTRANLIST');
+    const again = tree(`<OFX>${many}<STATUS></STATUS>${many}<STATUS>text</STATUS></OFX>`);
+    expect(again.problems[0]?.element).toBe('OFX/STATUS[2]');
   });
 
   it('hands the would-be children of an unknown empty SGML element back to its parent', () => {
@@ -102,8 +115,15 @@ describe('buildOfxTree', () => {
 
   it('stays linear on a long run of "<" without ">"', () => {
     // Every "<A" looks ahead to the one ">" at the very end: a scan that searched for ">" anew
-    // each time would be quadratic. The result: one problem per cut tag.
+    // each time would be quadratic. The result: one problem per cut tag (19 999), one for the
+    // unclosed <OFX>, of which the first MAX_TREE_PROBLEMS are listed and the rest counted.
     const t = tree('<OFX>' + '<A'.repeat(20_000) + '>');
-    expect(t.problems.filter((p) => p.message.startsWith('tag <A is not closed')).length).toBe(19_999);
+    expect(t.problems).toHaveLength(MAX_TREE_PROBLEMS + 1);
+    expect(t.problems.slice(0, MAX_TREE_PROBLEMS).every((p) => p.message.startsWith('tag <A is not closed'))).toBe(
+      true,
+    );
+    expect(t.problems[MAX_TREE_PROBLEMS]?.message).toBe(
+      `${20_000 - MAX_TREE_PROBLEMS} more problems in the body not listed`,
+    );
   });
 });

@@ -43,6 +43,9 @@ export interface OfxTree {
 /** Deepest nesting accepted; real OFX statements nest about ten levels deep. */
 export const MAX_OFX_DEPTH = 64;
 
+/** Problems listed by the scanner; beyond this they are only counted. */
+export const MAX_TREE_PROBLEMS = 500;
+
 const KNOWN_AGGREGATES = new Set(
   (
     'OFX SIGNONMSGSRSV1 SIGNONMSGSRQV1 SONRS SONRQ STATUS FI MFACHALLENGERS ' +
@@ -75,6 +78,8 @@ interface Building {
   children: Building[];
   /** Ordinal among same-named siblings so far (1-based), for element paths in problems. */
   ordinal: number;
+  /** Highest ordinal per child name, kept only for parents with many different children. */
+  counts?: Map<string, number>;
 }
 
 function kindOf(name: string): Kind {
@@ -108,7 +113,8 @@ function preview(text: string): string {
  * @param text the whole file text.
  * @param start offset where the body starts (after the header).
  * @param startLine 1-based line number at `start`.
- * @returns the top-level elements and every problem found; never throws.
+ * @returns the top-level elements and the problems found (at most MAX_TREE_PROBLEMS listed).
+ * @throws Never. O(n) in the length of the body.
  * @example buildOfxTree('<OFX><CODE>0</OFX>', 0, 1).roots[0]?.children[0]?.text // '0'
  */
 export function buildOfxTree(text: string, start: number, startLine: number): OfxTree {
@@ -147,7 +153,14 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
     return parts.join('/');
   };
 
+  let omitted = 0;
+  let omittedErrors = false;
   const problem = (atLine: number, message: string, severity: 'error' | 'notice' = 'error', element?: string): void => {
+    if (problems.length >= MAX_TREE_PROBLEMS) {
+      omitted++;
+      omittedErrors ||= severity === 'error';
+      return;
+    }
     problems.push(element ? { line: atLine, element, message, severity } : { line: atLine, message, severity });
   };
 
@@ -199,14 +212,26 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
       else break;
     }
     const parent = stack[stack.length - 1] as Building;
-    let ordinal = 1;
-    for (let i = parent.children.length - 1; i >= 0; i--) {
-      const sibling = parent.children[i] as Building;
+    // Same-named siblings are adjacent in OFX (STMTTRN after STMTTRN): look back a few
+    // children, and keep a per-parent count only for parents where that does not suffice.
+    let ordinal = 0;
+    const siblings = parent.children;
+    for (let i = siblings.length - 1; i >= Math.max(0, siblings.length - 8); i--) {
+      const sibling = siblings[i] as Building;
       if (sibling.name === name) {
-        ordinal = sibling.ordinal + 1;
+        ordinal = sibling.ordinal;
         break;
       }
     }
+    if (ordinal === 0 && siblings.length > 8) {
+      if (!parent.counts) {
+        parent.counts = new Map();
+        for (const c of siblings) parent.counts.set(c.name, c.ordinal);
+      }
+      ordinal = parent.counts.get(name) ?? 0;
+    }
+    ordinal++;
+    parent.counts?.set(name, ordinal);
     const node: Building = { name, line: atLine, kind: kindOf(name), text: '', hasText: false, children: [], ordinal };
     parent.children.push(node);
     if (selfClosing) {
@@ -365,5 +390,12 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
     popOne();
   }
 
+  if (omitted > 0) {
+    problems.push({
+      line: lastLine,
+      message: `${omitted} more problems in the body not listed`,
+      severity: omittedErrors ? 'error' : 'notice',
+    });
+  }
   return { roots: top.children.map(freeze), problems };
 }

@@ -19,7 +19,9 @@ function codePointText(value: number): string | undefined {
  * Decodes `&amp; &lt; &gt; &quot; &apos; &nbsp;` and numeric character references
  * (`&#233;`, `&#xE9;`). Anything else that starts with `&` is kept as written: SGML files
  * in the wild carry bare ampersands ("A&B Hardware"), and dropping them would lose text.
- * Never throws. O(n).
+ * O(n).
+ *
+ * @throws Never.
  *
  * @example decodeOfxText('Fish &amp; Chips &#x263A;') // 'Fish & Chips ☺'
  * @example decodeOfxText('A&B') // 'A&B'

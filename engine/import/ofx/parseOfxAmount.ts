@@ -14,7 +14,8 @@ import { parsePlainDecimal } from '../../core/money';
  * currency allows. A leading decimal separator (`-.50`) is read as `-0.50`.
  *
  * @returns minor units, or a string saying what is wrong with the value, to follow the
- *   quoted value in a message (never throws).
+ *   quoted value in a message.
+ * @throws Never.
  * @example parseOfxAmount('-1234.5', 2) // -123450
  * @example parseOfxAmount('12,50', 2) // 1250
  * @example parseOfxAmount('1.234', 2) // 'has 3 decimals, the currency allows 2'

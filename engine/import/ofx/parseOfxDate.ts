@@ -36,7 +36,8 @@ const OFFSET = /^([+-]?)(\d{1,2})(?:\.(\d{1,2}))?(?::([A-Za-z][A-Za-z0-9_/+-]{0,
  * (`[+5.30:IST]`) or `.H` tenths of an hour (`[+5.5:IST]`), between −12 and +14.
  * Hours 00–23, minutes 00–59, seconds 00–60 (leap second).
  *
- * @returns the parsed value, or a string saying what is wrong (never throws).
+ * @returns the parsed value, or a string saying what is wrong.
+ * @throws Never.
  * @example parseOfxDate('19961005132200.124[-5:EST]') // { date: '1996-10-05', secondOfDay: 48120, offsetMinutes: -300, zoneName: 'EST' }
  * @example parseOfxDate('19960431') // 'is not a calendar date: 1996-04-31 does not exist'
  */

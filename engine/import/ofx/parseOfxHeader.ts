@@ -54,7 +54,8 @@ function clip(text: string): string {
  * or `OFXHEADER="200"` with a 2xx `VERSION`; `COMPRESSION` must be absent or `NONE`.
  * A body that starts directly with `<OFX>` is accepted with a notice.
  *
- * @returns the header and its problems (an `error` means the file is refused); never throws.
+ * @returns the header and its problems (an `error` means the file is refused).
+ * @throws Never.
  * @example parseOfxHeader('OFXHEADER:100\nDATA:OFXSGML\nVERSION:102\n\n<OFX>').header.generation // 1
  */
 export function parseOfxHeader(text: string): { header: OfxHeader; problems: OfxHeaderProblem[] } {

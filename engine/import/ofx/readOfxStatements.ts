@@ -80,12 +80,15 @@ interface PendingEntry {
   line: number;
   path: string;
   correct?: { fitid: string; action: 'REPLACE' | 'DELETE' };
+  /** Set when a later CORRECTACTION in the file replaced or deleted this entry. */
+  removed?: boolean;
 }
 
-interface EarlierStatement {
-  readonly key: string;
-  readonly entries: PendingEntry[];
-}
+/**
+ * Entries kept so far per account (key) and FITID, in file order, so that a correction
+ * finds the latest earlier entry with its FITID in O(1) amortised time.
+ */
+type FitIdIndex = Map<string, Map<string, PendingEntry[]>>;
 
 /** A statement whose entries may still lose one to a later correction in the same file. */
 interface Draft {
@@ -110,7 +113,8 @@ interface Draft {
  * converts the amount into CURDEF at CURRATE; an ORIGCURRENCY aggregate is reported.
  *
  * @param roots top-level elements from `buildOfxTree`.
- * @returns statements (ignore them when any problem is an error) and problems; never throws.
+ * @returns statements (ignore them when any problem is an error) and problems.
+ * @throws Never. O(n) in the number of elements (corrections are looked up by FITID).
  * @example readOfxStatements(buildOfxTree(body, 0, 1).roots).statements.length // 1
  */
 export function readOfxStatements(roots: readonly OfxElement[]): {
@@ -120,7 +124,7 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
   const problems: OfxReadProblem[] = [];
   const statements: ParsedStatement[] = [];
   const drafts: Draft[] = [];
-  const earlier: EarlierStatement[] = [];
+  const byAccount: FitIdIndex = new Map();
   const add = (at: { line: number; path: string }, message: string, severity: 'error' | 'notice' = 'error'): void =>
     void problems.push({ line: at.line, element: at.path, message, severity });
 
@@ -256,8 +260,9 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
   }
 
   for (const draft of drafts) {
-    warnDuplicateFitIds(draft.entries);
-    statements.push({ ...draft, entries: draft.entries.map((p) => p.entry) });
+    const kept = draft.entries.filter((p) => !p.removed);
+    warnDuplicateFitIds(kept);
+    statements.push({ ...draft, entries: kept.map((p) => p.entry) });
   }
   return { statements, problems };
 
@@ -358,7 +363,6 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
 
     const key = `${acctName}|${account?.identifier ?? ''}|${curdef}`;
     const entries = applyCorrections(pending, key);
-    earlier.push({ key, entries });
     if (!ok || !account || exponent === undefined) return;
     const draft: Draft = { account, currency: curdef, entries, balances };
     if (from !== undefined) draft.from = from;
@@ -552,43 +556,58 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
     return { symbol, rate, rateText };
   }
 
+  /**
+   * Applies CORRECTACTION records to the latest earlier entry with the corrected FITID in
+   * the same account, in this statement or an earlier one of the file. Corrected entries
+   * are marked `removed`; the returned list still holds them (filtered at the end, since a
+   * later statement may correct an entry of this one).
+   */
   function applyCorrections(items: readonly PendingEntry[], key: string): PendingEntry[] {
+    let index = byAccount.get(key);
+    if (!index) {
+      index = new Map();
+      byAccount.set(key, index);
+    }
+    const remember = (item: PendingEntry): void => {
+      const list = (index as Map<string, PendingEntry[]>).get(item.fitid);
+      if (list) list.push(item);
+      else (index as Map<string, PendingEntry[]>).set(item.fitid, [item]);
+    };
+    const latest = (fitid: string): PendingEntry | undefined => {
+      const list = (index as Map<string, PendingEntry[]>).get(fitid);
+      while (list && list.length > 0 && (list[list.length - 1] as PendingEntry).removed) list.pop();
+      return list?.[list.length - 1];
+    };
     const kept: PendingEntry[] = [];
     for (const item of items) {
       if (!item.correct) {
         kept.push(item);
+        remember(item);
         continue;
       }
       const { fitid, action } = item.correct;
       const where = { line: item.line, path: item.path };
-      let target: { list: PendingEntry[]; index: number } | undefined;
-      const own = findLast(kept, fitid);
-      if (own >= 0) target = { list: kept, index: own };
-      for (let s = earlier.length - 1; s >= 0 && !target; s--) {
-        const other = earlier[s] as EarlierStatement;
-        if (other.key !== key) continue;
-        const index = findLast(other.entries, fitid);
-        if (index >= 0) target = { list: other.entries, index };
-      }
+      const target = latest(fitid);
       if (target) {
-        const [removed] = target.list.splice(target.index, 1);
-        const line = removed?.line ?? 0;
+        target.removed = true;
         if (action === 'REPLACE') {
           kept.push(item);
+          remember(item);
           add(
             where,
-            `CORRECTACTION REPLACE: replaces FITID "${fitid}" (line ${line}); the earlier entry was left out and this one kept`,
+            `CORRECTACTION REPLACE: replaces FITID "${fitid}" (line ${target.line}); the earlier entry was left out and this one kept`,
             'notice',
           );
         } else {
           add(
             where,
-            `CORRECTACTION DELETE: deletes FITID "${fitid}" (line ${line}); both that entry and this record were left out`,
+            `CORRECTACTION DELETE: deletes FITID "${fitid}" (line ${target.line}); both that entry and this record were left out`,
             'notice',
           );
         }
       } else if (action === 'REPLACE') {
         kept.push(item);
+        remember(item);
         add(
           where,
           `CORRECTACTION REPLACE of FITID "${fitid}", which is not in this file: this entry is kept; an earlier import holding FITID "${fitid}" must be corrected by hand`,
@@ -619,9 +638,4 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
       }
     }
   }
-}
-
-function findLast(list: readonly PendingEntry[], fitid: string): number {
-  for (let i = list.length - 1; i >= 0; i--) if ((list[i] as PendingEntry).fitid === fitid) return i;
-  return -1;
 }
