@@ -9,9 +9,11 @@
  *   discount matrix has all eigenvalues inside the unit circle. For seasonal models this is
  *   checked, as forecast does, through the roots of the characteristic polynomial
  *   φ(1−α−γ) + (α+β−αφ+γ−1)z + (α+β−αφ)(z² + … + z^{m−1}) + (α+β−φ)z^m + z^{m+1}
- *   (all of modulus ≤ 1 + 1e−10), after the closed-form necessary conditions.
+ *   (all of modulus below 1 + 1e−10, decided by the Schur–Cohn test rather than by finding
+ *   the roots as forecast does: the same criterion, without iteration), after the
+ *   closed-form necessary conditions.
  */
-import { maxRootModulus } from './polynomialRoots';
+import { rootsInsideRadius } from './polynomialRoots';
 import type { EtsBounds } from './etsModel';
 
 /** forecast::ets's default lower limits for [α, β, γ, φ]. */
@@ -38,7 +40,7 @@ export interface EtsEstimated {
 /**
  * True when the parameters lie in forecast::ets's admissible region for period m.
  *
- * Complexity: O(m²) for seasonal models (polynomial roots), O(1) otherwise.
+ * Complexity: O(m²) for seasonal models (Schur–Cohn test), O(1) otherwise.
  *
  * @example etsAdmissible({ alpha: 0.5, beta: null, gamma: null, phi: null }, 1) // true
  */
@@ -64,7 +66,7 @@ export function etsAdmissible(p: EtsParameterValues, period: number): boolean {
   for (let k = 2; k < m; k++) c[k] = alpha + beta - alpha * phi;
   c[m] = alpha + beta - phi;
   c[m + 1] = 1;
-  return maxRootModulus(c) <= 1 + 1e-10;
+  return rootsInsideRadius(c, 1 + 1e-10);
 }
 
 /**

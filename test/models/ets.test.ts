@@ -73,6 +73,8 @@ describe('ETS estimated freely (same optimiser and starting values as forecast::
       expect(Math.abs(fit.aicc - c.aicc)).toBeLessThan(1e-3);
       expectAllClose(fit.initialState, c.initstate, 1e-4, 'initial state');
       expectAllClose(forecastEts(fit, c.forecast.h).point, c.forecast.mean, 1e-4, 'mean');
+      // Same Nelder–Mead path as R: the same number of likelihood evaluations.
+      expect(fit.optimizer?.evaluations).toBe(c.nmEvaluations);
     });
   }
 

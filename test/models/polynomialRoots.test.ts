@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { maxRootModulus, polynomialRoots } from '../../engine/models/polynomialRoots';
+import { maxRootModulus, polynomialRoots, rootsInsideRadius } from '../../engine/models/polynomialRoots';
+import { createRng } from '../../engine/core/random';
 import { EngineError } from '../../engine/core/errors';
 import { expectAllClose } from '../helpers/expectAllClose';
 
@@ -55,5 +56,38 @@ describe('polynomialRoots', () => {
   it('refuses the zero polynomial and non-finite coefficients', () => {
     expect(() => polynomialRoots([0, 0])).toThrow(EngineError);
     expect(() => polynomialRoots([1, NaN])).toThrow(EngineError);
+  });
+});
+
+describe('rootsInsideRadius (Schur–Cohn)', () => {
+  it('agrees with the largest root modulus on random polynomials away from the circle', () => {
+    const rng = createRng(17);
+    let checked = 0;
+    for (let trial = 0; trial < 2000; trial++) {
+      const degree = 2 + rng.nextInt(12);
+      const c = Array.from({ length: degree + 1 }, () => rng.normal());
+      c[degree] = 1;
+      const max = maxRootModulus(c);
+      if (Math.abs(max - 1) < 1e-6) continue;
+      expect(rootsInsideRadius(c, 1), `trial ${trial}, max |root| ${max}`).toBe(max < 1);
+      checked++;
+    }
+    expect(checked).toBeGreaterThan(1900);
+  });
+
+  it('keeps a root exactly at 1 inside a radius of 1 + 1e−10 (the seasonal ETS case β = 0, φ = 1)', () => {
+    // ETS(A,N,A), m = 7, α = 0.3, γ = 0.01: the characteristic polynomial has the root z = 1.
+    const alpha = 0.3;
+    const gamma = 0.01;
+    const c = [1 - alpha - gamma, gamma - 1, 0, 0, 0, 0, 0, alpha - 1, 1];
+    expectAllClose([maxRootModulus(c)], [1], 1e-12);
+    expect(rootsInsideRadius(c, 1 + 1e-10)).toBe(true);
+    expect(rootsInsideRadius(c, 1 - 1e-10)).toBe(false);
+  });
+
+  it('counts a root on the circle as outside and refuses a bad radius', () => {
+    expect(rootsInsideRadius([-1, 1], 1)).toBe(false);
+    expect(rootsInsideRadius([-0.5, 1], 1)).toBe(true);
+    expect(() => rootsInsideRadius([1, 1], 0)).toThrow(EngineError);
   });
 });
