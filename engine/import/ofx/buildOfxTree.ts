@@ -69,11 +69,17 @@ const KNOWN_LEAVES = new Set(
 
 type Kind = 'aggregate' | 'leaf' | 'unknown';
 
+/**
+ * An element while it is being built. The same object is returned as the `OfxElement`
+ * (one allocation per element): `text` is set when the element is closed.
+ */
 interface Building {
   name: string;
   line: number;
   kind: Kind;
-  text: string;
+  /** Text received so far. */
+  raw: string;
+  text: string | undefined;
   hasText: boolean;
   children: Building[];
   /** Ordinal among same-named siblings so far (1-based), for element paths in problems. */
@@ -88,15 +94,10 @@ function kindOf(name: string): Kind {
   return 'unknown';
 }
 
-function freeze(node: Building): OfxElement {
-  // Recursion is safe: nesting is bounded by MAX_OFX_DEPTH.
+/** Fixes an element's final value: trimmed text for a leaf, undefined for an aggregate. */
+function settle(node: Building): void {
   const isLeaf = node.kind === 'leaf' || (node.kind === 'unknown' && node.children.length === 0);
-  return {
-    name: node.name,
-    line: node.line,
-    text: isLeaf ? node.text.trim() : undefined,
-    children: node.children.map(freeze),
-  };
+  node.text = isLeaf ? node.raw.trim() : undefined;
 }
 
 const NAME_START = /[A-Za-z_]/;
@@ -123,7 +124,8 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
     name: '',
     line: startLine,
     kind: 'aggregate',
-    text: '',
+    raw: '',
+    text: undefined,
     hasText: false,
     children: [],
     ordinal: 1,
@@ -170,8 +172,9 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
     const parent = stack[stack.length - 1] as Building;
     if (node.kind === 'unknown' && !node.hasText && node.children.length > 0) {
       const moved = node.children.splice(0);
-      parent.children.push(...moved);
+      for (const child of moved) parent.children.push(child);
     }
+    settle(node);
   };
 
   /** True when the innermost element may end without an end tag (a leaf or an empty unknown). */
@@ -190,7 +193,7 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
       return;
     }
     if (node.kind === 'leaf' || (node.kind === 'unknown' && node.children.length === 0)) {
-      node.text += piece;
+      node.raw += piece;
       if (piece.trim() !== '') node.hasText = true;
       return;
     }
@@ -232,10 +235,20 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
     }
     ordinal++;
     parent.counts?.set(name, ordinal);
-    const node: Building = { name, line: atLine, kind: kindOf(name), text: '', hasText: false, children: [], ordinal };
+    const node: Building = {
+      name,
+      line: atLine,
+      kind: kindOf(name),
+      raw: '',
+      text: undefined,
+      hasText: false,
+      children: [],
+      ordinal,
+    };
     parent.children.push(node);
     if (selfClosing) {
       if (node.kind === 'unknown') node.kind = 'leaf';
+      settle(node);
       return true;
     }
     if (stack.length > MAX_OFX_DEPTH) {
@@ -245,6 +258,7 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
         'error',
         pathOf(node),
       );
+      settle(node);
       return false;
     }
     stack.push(node);
@@ -397,5 +411,5 @@ export function buildOfxTree(text: string, start: number, startLine: number): Of
       severity: omittedErrors ? 'error' : 'notice',
     });
   }
-  return { roots: top.children.map(freeze), problems };
+  return { roots: top.children, problems };
 }

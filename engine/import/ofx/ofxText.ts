@@ -58,5 +58,7 @@ export function escapeOfxText(text: string): string {
  * @example normalizeOfxSpace('  RENT\r\n  MARCH ') // 'RENT MARCH'
  */
 export function normalizeOfxSpace(text: string): string {
+  // Fast path: most values hold no white space but single spaces.
+  if (!/[^\S ]| {2}/.test(text)) return text.trim();
   return text.replace(/\s+/g, ' ').trim();
 }

@@ -53,18 +53,40 @@ const ACCOUNT_KINDS: Readonly<Record<string, AccountKind>> = {
   CD: 'savings',
 };
 
-interface Located {
-  readonly el: OfxElement;
-  readonly path: string;
+/**
+ * An element with where it sits. The path (`OFX/…/STMTTRN[3]`) is built only when asked
+ * for, since most elements never appear in a problem.
+ */
+class Located {
+  private cachedPath: string | undefined;
+  constructor(
+    readonly el: OfxElement,
+    private readonly parent: Located | undefined,
+    /** 1-based position among same-named siblings, 0 when the element is the only one. */
+    private readonly index: number,
+  ) {}
+  get path(): string {
+    if (this.cachedPath === undefined) {
+      const own = this.index > 0 ? `${this.el.name}[${this.index}]` : this.el.name;
+      this.cachedPath = this.parent ? `${this.parent.path}/${own}` : own;
+    }
+    return this.cachedPath;
+  }
 }
 
 function kids(node: Located, name: string): Located[] {
   const found = node.el.children.filter((c) => c.name === name);
-  return found.map((el, i) => ({ el, path: `${node.path}/${name}${found.length > 1 ? `[${i + 1}]` : ''}` }));
+  return found.map((el, i) => new Located(el, node, found.length > 1 ? i + 1 : 0));
 }
 
 function kid(node: Located, name: string): Located | undefined {
-  return kids(node, name)[0];
+  let first: OfxElement | undefined;
+  for (const c of node.el.children) {
+    if (c.name !== name) continue;
+    if (first) return new Located(first, node, 1);
+    first = c;
+  }
+  return first ? new Located(first, node, 0) : undefined;
 }
 
 /** A leaf's value, '' when present but empty, undefined when absent. */
@@ -149,7 +171,7 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
       });
     }
   }
-  const ofx: Located = { el: ofxElement, path: 'OFX' };
+  const ofx = new Located(ofxElement, undefined, 0);
 
   // ---- helpers that read one leaf and report problems at it ----------------------------
   const at = (node: Located): { line: number; path: string } => ({ line: node.el.line, path: node.path });
@@ -197,7 +219,7 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
   // ---- signon ----------------------------------------------------------------------------
   for (const set of ofx.el.children) {
     if (!/^SIGNONMSGSRSV\d+$/.test(set.name)) continue;
-    const signon: Located = { el: set, path: `OFX/${set.name}` };
+    const signon = new Located(set, ofx, 0);
     for (const sonrs of kids(signon, 'SONRS')) {
       const status = kid(sonrs, 'STATUS');
       if (!status) continue;
@@ -218,7 +240,7 @@ export function readOfxStatements(roots: readonly OfxElement[]): {
   const requests: string[] = [];
   let responses = 0;
   for (const set of ofx.el.children) {
-    const setNode: Located = { el: set, path: `OFX/${set.name}` };
+    const setNode = new Located(set, ofx, 0);
     if (/^BANKMSGSRSV\d+$/.test(set.name)) {
       for (const trnrs of kids(setNode, 'STMTTRNRS')) {
         responses++;
