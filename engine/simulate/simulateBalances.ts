@@ -198,10 +198,11 @@ function fillResidual(
       } else {
         e = sigma * rng.normal();
       }
+      // Not clamped at zero: clamping a symmetric error at zero on quiet days biases the
+      // cumulative balance upwards, and the balance depends on the sums, which stay unbiased.
       const value = mean + e + ((c.offset[d] as number) || 0);
-      const magnitude = value > 0 ? value : 0;
-      flows[p * h + d] = (flows[p * h + d] as number) + c.sign * magnitude;
-      total += c.sign * magnitude;
+      flows[p * h + d] = (flows[p * h + d] as number) + c.sign * value;
+      total += c.sign * value;
       const newLevel = level + phi * trend + alpha * e;
       trend = phi * trend + beta * e;
       level = newLevel;

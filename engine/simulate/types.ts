@@ -57,8 +57,8 @@ export type ErrorDraw =
 /**
  * The flows left after recurring ones are taken out, one per direction. The daily value is
  * model point + innovations + `offset[d]` (calendar-monthly and yearly seasonality
- * projected), clamped at zero because a direction's magnitude cannot be negative, then
- * given its `sign`.
+ * projected), given its `sign`. A single day's value may come out below zero; it is not
+ * clamped, because clamping would bias the cumulative balance (see simulateBalances).
  */
 export interface ResidualComponent {
   readonly kind: 'residual';
