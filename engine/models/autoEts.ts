@@ -21,6 +21,8 @@ export interface AutoEtsOptions {
   readonly ic?: 'aicc' | 'aic' | 'bic';
   readonly bounds?: EtsBounds;
   readonly maxEvaluations?: number;
+  /** Optimiser strategy, see EtsConfig.optimizer. Default 'refined'. */
+  readonly optimizer?: 'forecast' | 'refined';
 }
 
 /** One candidate's outcome. */
@@ -100,6 +102,7 @@ export function autoEts(y: Series, options: AutoEtsOptions = {}): AutoEtsFit {
           period: season === 'A' ? period : 1,
           ...(options.bounds !== undefined ? { bounds: options.bounds } : {}),
           ...(options.maxEvaluations !== undefined ? { maxEvaluations: options.maxEvaluations } : {}),
+          ...(options.optimizer !== undefined ? { optimizer: options.optimizer } : {}),
         },
         false,
       );

@@ -27,6 +27,8 @@ export interface DecompositionEtsConfig {
   /** Restrict the non-seasonal ETS models; default ANN, AAN and AAdN. */
   readonly allowedModels?: AutoEtsOptions['allowedModels'];
   readonly ic?: AutoEtsOptions['ic'];
+  /** ETS optimiser strategy (EtsConfig.optimizer); default 'refined'. */
+  readonly optimizer?: AutoEtsOptions['optimizer'];
 }
 
 /** A fitted decomposition + ETS model (plain data). */
@@ -71,7 +73,11 @@ export function fitDecompositionEts(y: Series, config: DecompositionEtsConfig): 
       'the adjusted series takes non-seasonal ETS models only (ANN, AAN, AAdN)',
     );
   }
-  const adjustedModel = autoEts(adjusted, { allowedModels: allowed, ...(config.ic ? { ic: config.ic } : {}) });
+  const adjustedModel = autoEts(adjusted, {
+    allowedModels: allowed,
+    ...(config.ic ? { ic: config.ic } : {}),
+    ...(config.optimizer ? { optimizer: config.optimizer } : {}),
+  });
   let lastCycle: Float64Array | null = null;
   if (config.period !== undefined) {
     const m = config.period;

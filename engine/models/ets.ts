@@ -10,7 +10,10 @@
  *   φ = l + 0.99(u − l), and the `initstate` heuristic (engine/models/etsInitialStates.ts);
  *   points outside the usual or admissible region score +Infinity;
  * - the seasonal states are constrained to sum to zero (the last one is implied), so a
- *   model estimates m − 1 of them.
+ *   model estimates m − 1 of them;
+ * - by default ('refined') Nelder–Mead is then restarted from forecast's optimum in scaled
+ *   coordinates (see EtsConfig.optimizer), which makes the fit nearly independent of the
+ *   units of the data; optimizer: 'forecast' reproduces forecast::ets's result exactly.
  */
 import { EngineError } from '../core/errors';
 import { checkFinite, type Series } from './forecastTypes';
@@ -26,6 +29,7 @@ import {
 } from './etsModel';
 import { etsFilter, etsSse } from './etsRecursions';
 import { etsInitialStates } from './etsInitialStates';
+import { accurateMean } from './classicalDecomposition';
 import { DEFAULT_LOWER, DEFAULT_UPPER, etsParametersAllowed, type EtsEstimated } from './etsParameterSpace';
 import { nelderMead } from './nelderMead';
 
@@ -276,10 +280,54 @@ export function estimateEts(y: Series, config: EtsConfig, enforceShortSeries: bo
     if (lik < -1e10) lik = -1e10; // a perfect fit: keep the optimiser's arithmetic finite
     return lik;
   };
-  const result = nelderMead(objective, start, { maxEvaluations: config.maxEvaluations ?? 2000 });
-  const best = read(result.x);
+  const maxEvaluations = config.maxEvaluations ?? 2000;
+  const strategy = config.optimizer ?? 'refined';
+  const result = nelderMead(objective, start, { maxEvaluations });
+  let bestX = result.x;
+  let bestValue = result.value;
+  let evaluations = result.evaluations;
+  let improvingRestarts = 0;
+  if (strategy === 'refined') {
+    // Restart in coordinates where every initial state is (value − centre)/spread, so the
+    // simplex step (a tenth of the largest coordinate) suits the smoothing parameters too.
+    const centre = accurateMean(y);
+    let spread = 0;
+    for (let t = 0; t < n; t++) spread += Math.abs((y[t] as number) - centre);
+    spread = spread / n || 1;
+    const levelIndex = parameterCount;
+    const toScaled = (x: Float64Array): Float64Array =>
+      x.map((v, i) => (i < parameterCount ? v : (i === levelIndex ? v - centre : v) / spread));
+    const raw = new Float64Array(np);
+    const fromScaled = (u: Float64Array): Float64Array => {
+      for (let i = 0; i < np; i++) {
+        const v = u[i] as number;
+        raw[i] = i < parameterCount ? v : i === levelIndex ? v * spread + centre : v * spread;
+      }
+      return raw;
+    };
+    const scaledObjective = (u: Float64Array): number => objective(fromScaled(u));
+    // A second start: forecast's starting point, in the scaled coordinates.
+    const fresh = nelderMead(scaledObjective, toScaled(Float64Array.from(start)), { maxEvaluations });
+    evaluations += fresh.evaluations;
+    if (fresh.value < bestValue) {
+      bestX = Float64Array.from(fromScaled(fresh.x));
+      bestValue = fresh.value;
+      improvingRestarts++;
+    }
+    for (let restart = 0; restart < 2; restart++) {
+      const again = nelderMead(scaledObjective, toScaled(bestX), { maxEvaluations });
+      evaluations += again.evaluations;
+      const improvement = bestValue - again.value;
+      if (!(improvement > 0)) break;
+      bestX = Float64Array.from(fromScaled(again.x));
+      bestValue = again.value;
+      improvingRestarts++;
+      if (improvement <= 1e-8 * Math.abs(bestValue)) break;
+    }
+  }
+  const best = read(bestX);
   const initialState = new Float64Array(width);
-  completeState(spec, result.x.subarray(parameterCount), initialState);
+  completeState(spec, bestX.subarray(parameterCount), initialState);
   return summarise({
     y,
     spec,
@@ -287,7 +335,7 @@ export function estimateEts(y: Series, config: EtsConfig, enforceShortSeries: bo
     initialState,
     estimatedCount: np,
     fixedCount,
-    optimizer: { evaluations: result.evaluations, status: result.status },
+    optimizer: { evaluations, status: result.status, strategy, improvingRestarts },
   });
 }
 

@@ -60,8 +60,17 @@ export interface EtsConfig {
   readonly lower?: readonly [number, number, number, number];
   /** Upper limits for [α, β, γ, φ]. Default [0.9999, 0.9999, 0.9999, 0.98]. */
   readonly upper?: readonly [number, number, number, number];
-  /** Nelder–Mead evaluation limit. Default 2000, as forecast::ets. */
+  /** Nelder–Mead evaluation limit per optimiser run. Default 2000, as forecast::ets. */
   readonly maxEvaluations?: number;
+  /**
+   * 'forecast': forecast::ets's optimisation exactly (one Nelder–Mead run in the raw
+   * parameters). 'refined' (default): the same run, then Nelder–Mead restarted from its
+   * optimum with the initial states centred and scaled by the data's spread, until a restart
+   * no longer improves the likelihood (at most 3 restarts). forecast's run takes its simplex
+   * step from the largest parameter, so its result depends on the units of the data (cents
+   * or euros); the restarts remove most of that dependence and never lower the likelihood.
+   */
+  readonly optimizer?: 'forecast' | 'refined';
 }
 
 /** A fitted ETS model: plain data, safe to post to a worker or store. */
@@ -104,8 +113,17 @@ export interface FittedEts {
   readonly mse: number;
   /** True when the series was constant and an exact fit was returned (criteria are −Infinity). */
   readonly constant: boolean;
-  /** Optimiser outcome (null when nothing was estimated). */
-  readonly optimizer: { readonly evaluations: number; readonly status: 0 | 1 | 10 } | null;
+  /**
+   * Optimiser outcome (null when nothing was estimated): total likelihood evaluations, the
+   * status of forecast's run (0 converged, 1 evaluation limit, 10 degenerate simplex) and the
+   * number of refining restarts that improved the fit.
+   */
+  readonly optimizer: {
+    readonly evaluations: number;
+    readonly status: 0 | 1 | 10;
+    readonly strategy: 'forecast' | 'refined';
+    readonly improvingRestarts: number;
+  } | null;
 }
 
 /**
