@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { simulateBalances } from '../../engine/simulate/simulateBalances';
 import { summariseBalances } from '../../engine/simulate/summariseBalances';
 import { QUANTILE_LEVELS, type FlowComponent, type SimulationInput } from '../../engine/simulate/types';
-import { normalQuantile } from './normalQuantile';
+import { normalQuantile } from '../../engine/stats/distributions';
 
 function run(input: SimulationInput) {
   const sim = simulateBalances(input);
@@ -216,10 +216,3 @@ describe('simulateBalances', () => {
   });
 });
 
-describe('normalQuantile test helper', () => {
-  it('matches the published two-sided 95% point', () => {
-    // Source: REFERENCES.md, ACF white-noise band ±1.959964/√n (R qnorm(0.975))
-    expect(normalQuantile(0.975)).toBeCloseTo(1.959964, 6);
-    expect(normalQuantile(0.05)).toBeCloseTo(-1.644854, 6); // Source: R 4.2.2 qnorm(0.05)
-  });
-});
