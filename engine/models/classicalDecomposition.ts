@@ -18,8 +18,11 @@ export interface ClassicalDecomposition {
 }
 
 /**
- * Mean as R's `mean()` computes it: the plain mean corrected by the mean of the
- * deviations (a second pass that removes most rounding error).
+ * Mean of values[from..to) as R's `mean()` computes it: the plain mean corrected by the
+ * mean of the deviations (a second pass that removes most rounding error).
+ *
+ * @throws EngineError INVALID_ARGUMENT for an empty range.
+ * @example accurateMean([1, 2, 3, 4], 1, 3) // 2.5
  */
 export function accurateMean(values: ArrayLike<number>, from = 0, to = values.length): number {
   const count = to - from;

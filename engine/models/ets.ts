@@ -150,8 +150,11 @@ function checkFixed(name: string, value: number | undefined, present: boolean): 
 
 /**
  * Fits one model; `enforceShortSeries` adds forecast's rule for an explicitly chosen model
- * (n must exceed the parameter count + 4).
- * @internal exported for autoEts.
+ * (n must exceed the parameter count + 4). Exported for autoEts, which, like forecast's
+ * model search, applies only the rule that fewer values must be estimated than n − 1.
+ *
+ * @throws EngineError as {@link fitEts}.
+ * @example estimateEts(y, { trend: 'A', season: 'N' }, false)
  */
 export function estimateEts(y: Series, config: EtsConfig, enforceShortSeries: boolean): FittedEts {
   checkFinite(y, 'y');

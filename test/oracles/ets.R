@@ -82,6 +82,7 @@ cases <- list(
   ets_case("WWWusage-auto", "fit <- ets(WWWusage)", WWWusage, 10),
   ets_case("AirPassengers-AAdA", "fit <- ets(AirPassengers, model = \"AAA\", damped = TRUE)", AirPassengers, 24),
   ets_case("USAccDeaths-AAA", "fit <- ets(USAccDeaths, model = \"AAA\")", USAccDeaths, 24),
+  ets_case("USAccDeaths-AAA-undamped", "fit <- ets(USAccDeaths, model = \"AAA\", damped = FALSE)", USAccDeaths, 24),
   ets_case("Nile-ANN", "fit <- ets(Nile, model = \"ANN\")", Nile, 10),
   ets_case("synthetic-ANN", "fit <- ets(synthetic, model = \"ANN\")", synthetic, 14),
   ets_case("synthetic-AAN", "fit <- ets(synthetic, model = \"AAN\", damped = FALSE)", synthetic, 14),
