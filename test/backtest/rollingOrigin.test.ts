@@ -10,6 +10,7 @@ import { EngineError } from '../../engine/core/errors';
 import { createRng } from '../../engine/core/random';
 import { classicalDecomposition } from '../../engine/models/classicalDecomposition';
 import { expectClose } from '../helpers/expectAllClose';
+import { normalQuantile } from '../../engine/models/normalDistribution';
 
 /** A constant forecast with symmetric intervals of half-width `half` at every level. */
 function flatCandidate(name: string, value: (train: Float64Array) => number, half: number): CandidateModel {
@@ -111,6 +112,35 @@ describe('rollingOriginBacktest', () => {
     for (const c of r.candidates) {
       expect(c.coverage90 as number).toBeGreaterThanOrEqual(c.coverage80 as number);
     }
+  });
+
+  it('reads 80% and 90% bands from another interval assuming a Gaussian forecast', () => {
+    // Only a 95% interval of half-width 1.96·σ with σ = 2: the 80% band is ±1.2816·σ.
+    const onlyWide: CandidateModel = {
+      name: 'only 95%',
+      fitForecast: (train, horizon) => {
+        const point = new Float64Array(horizon).fill(train[train.length - 1] as number);
+        const half = normalQuantile(0.975) * 2;
+        return {
+          point,
+          model: 'x',
+          intervals: [{ level: 0.95, lower: point.map((v) => v - half), upper: point.map((v) => v + half) }],
+        };
+      },
+    };
+    const y = Float64Array.from({ length: 40 }, (_, t) => t);
+    const r = rollingOriginBacktest(
+      y,
+      [onlyWide, flatCandidate('exact', (tr) => tr[tr.length - 1] as number, normalQuantile(0.9) * 2)],
+      {
+        horizon: 4,
+        minTrain: 20,
+      },
+    );
+    // Same point forecasts and the same implied 80% band give the same scores.
+    expect(r.candidates[0]?.coverage80).toBe(r.candidates[1]?.coverage80);
+    expectClose(r.candidates[0]?.pinball?.p90 as number, r.candidates[1]?.pinball?.p90 as number, 1e-12);
+    expectClose(r.candidates[0]?.winkler80 as number, r.candidates[1]?.winkler80 as number, 1e-12);
   });
 
   it('reports a failing candidate and does not rank it', () => {
