@@ -6,7 +6,7 @@
  */
 import { EngineError } from '../core/errors';
 import { checkFinite, type Forecast, type Series } from '../models/forecastTypes';
-import { normalQuantile } from '../models/normalDistribution';
+import { normalQuantile } from '../stats/distributions';
 import { intervalCoverage, mase, pinballLoss, seasonalNaiveScale, winklerScore } from './scores';
 
 /** A model to compare: fit on `train` and forecast `horizon` steps with the given interval levels. */

@@ -3,7 +3,12 @@
  * rolling-origin backtest. Every function reads its inputs without changing them.
  */
 import { EngineError } from '../core/errors';
-import { normalCdf, normalDensity } from '../models/normalDistribution';
+import { normalCdf } from '../stats/distributions';
+
+/** Standard normal density φ(z). */
+function normalDensity(z: number): number {
+  return Math.exp(-0.5 * z * z) / Math.sqrt(2 * Math.PI);
+}
 
 type Values = ArrayLike<number>;
 

@@ -2,7 +2,7 @@
  * Central prediction intervals of a Gaussian predictive distribution.
  */
 import { checkLevels, type PredictionInterval } from './forecastTypes';
-import { normalQuantile } from './normalDistribution';
+import { normalQuantile } from '../stats/distributions';
 
 /**
  * Intervals point ± z·sd with z = Φ⁻¹((1 + level)/2), the form of Hyndman and

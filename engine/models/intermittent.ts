@@ -29,7 +29,7 @@ import {
   type ForecastOptions,
   type Series,
 } from './forecastTypes';
-import { normalQuantile } from './normalDistribution';
+import { normalQuantile } from '../stats/distributions';
 
 /** How {@link fitIntermittent} estimates. */
 export interface IntermittentConfig {

@@ -10,7 +10,7 @@ import { EngineError } from '../../engine/core/errors';
 import { createRng } from '../../engine/core/random';
 import { classicalDecomposition } from '../../engine/models/classicalDecomposition';
 import { expectClose } from '../helpers/expectAllClose';
-import { normalQuantile } from '../../engine/models/normalDistribution';
+import { normalQuantile } from '../../engine/stats/distributions';
 
 /** A constant forecast with symmetric intervals of half-width `half` at every level. */
 function flatCandidate(name: string, value: (train: Float64Array) => number, half: number): CandidateModel {

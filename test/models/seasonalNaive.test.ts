@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fitSeasonalNaive, forecastSeasonalNaive } from '../../engine/models/seasonalNaive';
-import { normalQuantile } from '../../engine/models/normalDistribution';
+import { normalQuantile } from '../../engine/stats/distributions';
 import { EngineError } from '../../engine/core/errors';
 import { expectAllClose } from '../helpers/expectAllClose';
 import { loadFixture } from './fixtures';

@@ -234,14 +234,7 @@ write_fixture(list(
     train = arr(train_nile), test = arr(test_nile), period = 1,
     mean = arr(nv$mean), lower80 = arr(nv$lower[, 1]), upper80 = arr(nv$upper[, 1]),
     lower95 = arr(nv$lower[, 2]), upper95 = arr(nv$upper[, 2]),
-    testMASE = acc_nv["Test set", "MASE"]),
-  normal = list(
-    call = "qnorm(p); pnorm(z); dnorm(z)",
-    p = arr(c(1e-12, 1e-4, 0.01, 0.025, 0.05, 0.1, 0.3, 0.5, 0.7, 0.9, 0.95, 0.975, 0.99, 0.9999)),
-    qnorm = arr(qnorm(c(1e-12, 1e-4, 0.01, 0.025, 0.05, 0.1, 0.3, 0.5, 0.7, 0.9, 0.95, 0.975, 0.99, 0.9999))),
-    z = arr(c(-8, -3, -1.5, -0.2, 0, 0.7, 1.959963984540054, 4)),
-    pnorm = arr(pnorm(c(-8, -3, -1.5, -0.2, 0, 0.7, 1.959963984540054, 4))),
-    dnorm = arr(dnorm(c(-8, -3, -1.5, -0.2, 0, 0.7, 1.959963984540054, 4))))
+    testMASE = acc_nv["Test set", "MASE"])
 ), "accuracy.json")
 
 # --- Croston's method -------------------------------------------------------------------
