@@ -292,6 +292,15 @@ const NAME_CACHE_SIZE = 4096;
 
 type MutableElement = XmlElement & { children: XmlNode[] };
 
+/** Shared by every element without children; replaced (never pushed to) on the first child. */
+const NO_CHILDREN: XmlNode[] = Object.freeze([]) as unknown as XmlNode[];
+
+/** Appends a child; the first child gets an array of exactly one slot (most elements are leaves). */
+function addChild(parent: MutableElement, node: XmlNode): void {
+  if (parent.children === NO_CHILDREN) parent.children = [node];
+  else parent.children.push(node);
+}
+
 /**
  * Pull parser over a whole document held in memory.
  *
@@ -346,6 +355,10 @@ export class XmlPullParser {
   private readonly nsUris: string[] = [XML_NAMESPACE];
   private readonly nameCache: (string | undefined)[] = new Array<string | undefined>(NAME_CACHE_SIZE);
   private readonly qnameParts = new Map<string, [string, string]>();
+  private readonly namePrefix: ([string, string] | undefined)[] = new Array<[string, string] | undefined>(
+    NAME_CACHE_SIZE,
+  );
+  private lastNameSlot = 0;
 
   // Fields of the token just scanned.
   private tName = '';
@@ -414,7 +427,10 @@ export class XmlPullParser {
     return index > 1 || this.indexedNames.has(localName) ? `${name}[${index}]` : name;
   }
 
-  /** The next event. Never throws; see `XmlEvent`. */
+  /**
+   * The next event. Never throws; see `XmlEvent`.
+   * @example new XmlPullParser('<a/>').next() // { type: 'start', name: 'a', selfClosing: true, … }
+   */
   next(): XmlEvent {
     if (this.failure) return this.failure;
     if (this.finished) return this.finished;
@@ -507,18 +523,18 @@ export class XmlPullParser {
             localName: this.tLocal,
             namespace: this.tNs,
             attributes: this.tAttrs,
-            children: [],
+            children: NO_CHILDREN,
             line: this.tLine,
             column: this.tColumn,
             index: this.tIndex,
           };
-          top.children.push(child);
+          addChild(top, child);
           stack.push(child);
         } else if (tok === TOK_END) {
           stack.pop();
           if (stack.length === 0) return root;
         } else if (tok === TOK_TEXT) {
-          top.children.push({
+          addChild(top, {
             kind: 'text',
             text: this.tText,
             cdata: this.tCdata,
@@ -526,9 +542,9 @@ export class XmlPullParser {
             column: this.tColumn,
           });
         } else if (tok === TOK_COMMENT) {
-          top.children.push({ kind: 'comment', text: this.tText, line: this.tLine, column: this.tColumn });
+          addChild(top, { kind: 'comment', text: this.tText, line: this.tLine, column: this.tColumn });
         } else if (tok === TOK_PI) {
-          top.children.push({
+          addChild(top, {
             kind: 'pi',
             target: this.tTarget,
             data: this.tText,
@@ -756,6 +772,8 @@ export class XmlPullParser {
     while (this.pos < this.end) {
       const pos = this.pos;
       if (text.charCodeAt(pos) === LT) {
+        const c1 = text.charCodeAt(pos + 1);
+        if (c1 !== BANG && c1 !== QUESTION) break;
         if (text.startsWith('<![CDATA[', pos)) {
           if (this.depthNow === 0) this.fail(pos, 'CDATA section outside the root element');
           const close = text.indexOf(']]>', pos + 9);
@@ -769,7 +787,7 @@ export class XmlPullParser {
           this.skipComment();
           continue;
         }
-        if (text.charCodeAt(pos + 1) === QUESTION && !this.reportPis) {
+        if (c1 === QUESTION && !this.reportPis) {
           this.scanPi(false);
           continue;
         }
@@ -846,6 +864,15 @@ export class XmlPullParser {
     return out + normalizeLiteral(raw.slice(last), attribute);
   }
 
+  /** True when `s` occurs in the text at `p` (a plain loop: cheaper than startsWith for short names). */
+  private matchesAt(s: string, p: number): boolean {
+    const text = this.text;
+    const n = s.length;
+    if (p + n > this.end) return false;
+    for (let i = 0; i < n; i++) if (s.charCodeAt(i) !== text.charCodeAt(p + i)) return false;
+    return true;
+  }
+
   /** Scans a name starting at `p` (its first character already checked) and returns it interned. */
   private scanName(p: number): string {
     const text = this.text;
@@ -858,6 +885,7 @@ export class XmlPullParser {
       p++;
     }
     const slot = h & (NAME_CACHE_SIZE - 1);
+    this.lastNameSlot = slot;
     const cached = this.nameCache[slot];
     if (cached !== undefined && cached.length === p - start) {
       let i = 0;
@@ -866,10 +894,14 @@ export class XmlPullParser {
     }
     const name = text.slice(start, p);
     this.nameCache[slot] = name;
+    this.namePrefix[slot] = undefined;
     return name;
   }
 
-  private qualifiedParts(name: string, at: number, element: string): [string, string] {
+  private qualifiedParts(name: string, slot: number, at: number, element: string): [string, string] {
+    // Names come from scanName, so the parts are usually cached in the name's slot.
+    const cachedParts = slot >= 0 && this.nameCache[slot] === name ? this.namePrefix[slot] : undefined;
+    if (cachedParts !== undefined) return cachedParts;
     let parts = this.qnameParts.get(name);
     if (parts === undefined) {
       const colon = name.indexOf(':');
@@ -879,6 +911,7 @@ export class XmlPullParser {
       parts = colon === -1 ? ['', name] : [name.slice(0, colon), name.slice(colon + 1)];
       if (this.qnameParts.size < 10000) this.qnameParts.set(name, parts);
     }
+    if (slot >= 0 && this.nameCache[slot] === name) this.namePrefix[slot] = parts;
     return parts;
   }
 
@@ -890,11 +923,11 @@ export class XmlPullParser {
       this.fail(lt, p >= this.end ? 'unexpected end of file after "<"' : '"<" must be followed by an element name');
     }
     const name = this.scanName(p);
+    const nameSlot = this.lastNameSlot;
     p += name.length;
     if (this.rootClosed) this.fail(lt, `second root element <${name}>, a document has exactly one root`);
 
-    let rawNames: string[] | undefined;
-    let rawValues: string[] | undefined;
+    let list: { name: string; prefix: string; localName: string; namespace: string; value: string }[] | undefined;
     let selfClosing = false;
     for (;;) {
       const before = p;
@@ -928,48 +961,49 @@ export class XmlPullParser {
       if (ltInValue !== -1) this.fail(p + 1 + ltInValue, `"<" is not allowed in the value of ${attrName}`, name);
       const value = this.decode(raw, p + 1, true);
       p = close + 1;
-      if (!rawNames || !rawValues) {
-        rawNames = [];
-        rawValues = [];
-      }
-      rawNames.push(attrName);
-      rawValues.push(value);
+      const attribute = { name: attrName, prefix: '', localName: attrName, namespace: '', value };
+      if (list) list.push(attribute);
+      else list = [attribute];
     }
 
     // Namespace declarations of this element apply to its own name and attributes.
     const mark = this.nsPrefixes.length;
-    if (rawNames && rawValues) {
-      for (let i = 0; i < rawNames.length; i++) {
-        const an = rawNames[i] as string;
-        if (an === 'xmlns') this.bind('', rawValues[i] as string, lt, name);
-        else if (an.startsWith('xmlns:')) this.bind(an.slice(6), rawValues[i] as string, lt, name);
+    if (list) {
+      for (const a of list) {
+        if (a.name === 'xmlns') this.bind('', a.value, lt, name);
+        else if (a.name.startsWith('xmlns:')) this.bind(a.name.slice(6), a.value, lt, name);
       }
     }
-    const [prefix, localName] = this.qualifiedParts(name, lt, name);
+    const [prefix, localName] = this.qualifiedParts(name, nameSlot, lt, name);
     let namespace = this.lookup(prefix);
     if (namespace === undefined) {
       if (prefix !== '') this.fail(lt, `namespace prefix "${prefix}" of <${name}> is not declared`, name);
       namespace = '';
     }
     let attributes = EMPTY_ATTRIBUTES;
-    if (rawNames && rawValues) {
-      const list: XmlAttribute[] = [];
-      const seen = rawNames.length > 8 ? new Set<string>() : undefined;
-      for (let i = 0; i < rawNames.length; i++) {
-        const an = rawNames[i] as string;
-        if (seen ? seen.has(an) : rawNames.indexOf(an) < i) {
-          this.fail(lt, `attribute ${an} appears twice in <${name}>`, name);
-        }
+    if (list) {
+      const seen = list.length > 8 ? new Set<string>() : undefined;
+      for (let i = 0; i < list.length; i++) {
+        const a = list[i] as (typeof list)[number];
+        const an = a.name;
+        let duplicate = false;
+        if (seen) duplicate = seen.has(an);
+        else for (let j = 0; j < i && !duplicate; j++) duplicate = (list[j] as (typeof list)[number]).name === an;
+        if (duplicate) this.fail(lt, `attribute ${an} appears twice in <${name}>`, name);
         seen?.add(an);
-        const [ap, al] = this.qualifiedParts(an, lt, name);
-        let ans = '';
-        if (an === 'xmlns' || ap === 'xmlns') ans = XMLNS_NAMESPACE;
-        else if (ap !== '') {
+        if (an.indexOf(':') === -1) {
+          if (an === 'xmlns') a.namespace = XMLNS_NAMESPACE;
+          continue;
+        }
+        const [ap, al] = this.qualifiedParts(an, -1, lt, name);
+        a.prefix = ap;
+        a.localName = al;
+        if (ap === 'xmlns') a.namespace = XMLNS_NAMESPACE;
+        else {
           const uri = this.lookup(ap);
           if (uri === undefined) this.fail(lt, `namespace prefix "${ap}" of attribute ${an} is not declared`, name);
-          ans = uri;
+          a.namespace = uri;
         }
-        list.push({ name: an, prefix: ap, localName: al, namespace: ans, value: rawValues[i] as string });
       }
       attributes = list;
     }
@@ -1066,7 +1100,7 @@ export class XmlPullParser {
     const d = this.depthNow;
     const expected = d > 0 ? (this.oName[d] as string) : '';
     let name: string;
-    if (d > 0 && text.startsWith(expected, p) && !isNameChar(text.charCodeAt(p + expected.length))) {
+    if (d > 0 && this.matchesAt(expected, p) && !isNameChar(text.charCodeAt(p + expected.length))) {
       name = expected;
       p += expected.length;
     } else {
@@ -1138,7 +1172,7 @@ function elementOf(ev: XmlStartEvent): XmlElement & { children: XmlNode[] } {
     localName: ev.localName,
     namespace: ev.namespace,
     attributes: ev.attributes,
-    children: [],
+    children: NO_CHILDREN,
     line: ev.line,
     column: ev.column,
     index: ev.index,
@@ -1211,7 +1245,7 @@ export function childElements(parent: XmlElement, localName?: string, namespace?
 
 /**
  * The element's own character data (its text children joined, child elements skipped).
- * @example elementText(parseXmlRoot('<a>x<b>y</b>z</a>')) // 'xz'
+ * @example elementText((parseXml('<a>x<b>y</b>z</a>') as { root: XmlElement }).root) // 'xz'
  */
 export function elementText(element: XmlElement): string {
   const children = element.children;

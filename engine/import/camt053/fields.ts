@@ -33,6 +33,7 @@ export interface StatementContext {
  * Reads `<Amt Ccy="EUR">12.50</Amt>` as unsigned minor units in the statement currency.
  * Source: ISO 20022 camt.053 ActiveOrHistoricCurrencyAndAmount (xs:decimal, fractionDigits 5,
  * totalDigits 18, minInclusive 0, attribute Ccy required).
+ * @example readAmount(amtElement, 'Document/BkToCstmrStmt/Stmt[1]/Ntry[1]/Amt', ctx) // 1250
  */
 export function readAmount(amt: XmlElement, path: string, ctx: StatementContext): number | undefined {
   const ccy = attr(amt, 'Ccy')?.trim();
@@ -70,7 +71,10 @@ export function readAmount(amt: XmlElement, path: string, ctx: StatementContext)
   return minor;
 }
 
-/** Reads `CdtDbtInd` (CRDT or DBIT) below `parent`. */
+/**
+ * Reads `CdtDbtInd` (CRDT or DBIT) below `parent`.
+ * @example readCreditDebit(ntry, 'Document/BkToCstmrStmt/Stmt[1]/Ntry[1]', ctx) // 'DBIT'
+ */
 export function readCreditDebit(parent: XmlElement, path: string, ctx: StatementContext): 'CRDT' | 'DBIT' | undefined {
   const el = child(parent, 'CdtDbtInd', ctx.ns);
   if (!el) {
@@ -86,6 +90,7 @@ export function readCreditDebit(parent: XmlElement, path: string, ctx: Statement
 /**
  * Reads a DateAndDateTimeChoice (`<Dt>` ISODate or `<DtTm>` ISODateTime) as a calendar
  * date; a DtTm gives its date as written, not converted to UTC.
+ * @example readDateChoice(bookgDt, 'Document/BkToCstmrStmt/Stmt[1]/Ntry[1]/BookgDt', ctx) // '2025-03-20'
  */
 export function readDateChoice(choice: XmlElement, path: string, ctx: StatementContext): string | undefined {
   const dt = child(choice, 'Dt', ctx.ns);
@@ -103,7 +108,10 @@ export function readDateChoice(choice: XmlElement, path: string, ctx: StatementC
   return r.date;
 }
 
-/** Reads an ISODateTime element's calendar date (e.g. FrToDt/FrDtTm). */
+/**
+ * Reads an ISODateTime element's calendar date (e.g. FrToDt/FrDtTm).
+ * @example readDateTime(frDtTm, 'Document/BkToCstmrStmt/Stmt[1]/FrToDt/FrDtTm', ctx) // '2025-03-01'
+ */
 export function readDateTime(el: XmlElement, path: string, ctx: StatementContext): string | undefined {
   const r = isoDateTimeDateOf(textOf(el));
   if ('message' in r) {

@@ -2,16 +2,22 @@
  * Shared pieces of the camt.053 importer and writer: message versions and namespaces,
  * ISO 20022 value types (ISODate, ISODateTime, amounts) and the problem collector.
  */
-import { isCalendarDate } from '../../core/dates';
+import { isCalendarDate, isValidYmd } from '../../core/dates';
 import { isKnownCurrency, minorUnitExponent } from '../../core/currency';
 import { parsePlainDecimal } from '../../core/money';
 import type { ImportProblem } from '../types';
 import type { XmlElement } from '../xml';
 
-/** Namespace of camt.053 version `001.NN` is this prefix + `NN`. */
+/**
+ * Namespace of camt.053 version `001.NN` is this prefix + `NN`.
+ * @example CAMT053_NAMESPACE_PREFIX + '08' // 'urn:iso:std:iso:20022:tech:xsd:camt.053.001.08'
+ */
 export const CAMT053_NAMESPACE_PREFIX = 'urn:iso:std:iso:20022:tech:xsd:camt.053.001.';
 
-/** Versions of camt.053 (BankToCustomerStatementV02 … V13) that Ebbline reads and writes. */
+/**
+ * Versions of camt.053 (BankToCustomerStatementV02 … V13) that Ebbline reads and writes.
+ * @example CAMT053_VERSIONS.includes('001.08') // true
+ */
 export const CAMT053_VERSIONS: readonly string[] = [
   '001.02',
   '001.03',
@@ -56,6 +62,8 @@ const ISO_DATE_TIME_TEXT =
  * @example isoDateOf('2025-04-31') // 'impossible date "2025-04-31"'
  */
 export function isoDateOf(text: string): { date: string } | { message: string } {
+  const fast = plainDate(text);
+  if (fast !== undefined) return fast;
   const m = ISO_DATE_TEXT.exec(text);
   if (!m) return { message: `"${clip(text)}" is not a date, expected YYYY-MM-DD` };
   const date = m[1] as string;
@@ -68,13 +76,58 @@ export function isoDateOf(text: string): { date: string } | { message: string } 
  * @example isoDateTimeDateOf('2024-03-31T23:30:00-05:00') // { date: '2024-03-31' }
  */
 export function isoDateTimeDateOf(text: string): { date: string } | { message: string } {
+  if (text.length === 19 && text.charCodeAt(10) === 0x54 /* T */ && isPlainTime(text, 11)) {
+    const fast = plainDate(text.slice(0, 10));
+    if (fast !== undefined) return fast;
+  }
   const m = ISO_DATE_TIME_TEXT.exec(text);
   if (!m) return { message: `"${clip(text)}" is not a date-time, expected YYYY-MM-DDThh:mm:ss` };
   const date = m[1] as string;
   return isCalendarDate(date) ? { date } : { message: `impossible date "${date}"` };
 }
 
-/** Shortens text quoted in a message. */
+/** Digit value of the character at `i`, or -1. */
+function digitAt(s: string, i: number): number {
+  const c = s.charCodeAt(i) - 48;
+  return c >= 0 && c <= 9 ? c : -1;
+}
+
+/**
+ * Fast path for the common `YYYY-MM-DD`: the result without regular expressions, or
+ * undefined to let the general path decide (and word the message).
+ */
+function plainDate(text: string): { date: string } | undefined {
+  if (text.length !== 10 || text.charCodeAt(4) !== 0x2d || text.charCodeAt(7) !== 0x2d) return undefined;
+  const y0 = digitAt(text, 0);
+  const y1 = digitAt(text, 1);
+  const y2 = digitAt(text, 2);
+  const y3 = digitAt(text, 3);
+  const m0 = digitAt(text, 5);
+  const m1 = digitAt(text, 6);
+  const d0 = digitAt(text, 8);
+  const d1 = digitAt(text, 9);
+  if ((y0 | y1 | y2 | y3 | m0 | m1 | d0 | d1) < 0) return undefined;
+  const ok = isValidYmd(y0 * 1000 + y1 * 100 + y2 * 10 + y3, m0 * 10 + m1, d0 * 10 + d1);
+  return ok ? { date: text } : undefined;
+}
+
+/** True for `hh:mm:ss` (00–23, 00–59, 00–59) at `at`. */
+function isPlainTime(text: string, at: number): boolean {
+  if (text.charCodeAt(at + 2) !== 0x3a || text.charCodeAt(at + 5) !== 0x3a) return false;
+  const h0 = digitAt(text, at);
+  const h1 = digitAt(text, at + 1);
+  const i0 = digitAt(text, at + 3);
+  const i1 = digitAt(text, at + 4);
+  const s0 = digitAt(text, at + 6);
+  const s1 = digitAt(text, at + 7);
+  if ((h0 | h1 | i0 | i1 | s0 | s1) < 0) return false;
+  return h0 * 10 + h1 <= 23 && i0 <= 5 && s0 <= 5;
+}
+
+/**
+ * Shortens text quoted in a message to 40 characters.
+ * @example clip('short') // 'short'
+ */
 export function clip(text: string): string {
   return text.length > 40 ? text.slice(0, 37) + '…' : text;
 }
@@ -90,6 +143,8 @@ const XS_DECIMAL = /^\+?(?:\d+(?:\.\d*)?|\.\d+)$/;
  * @example unsignedAmountOf('-1.00', 2) // { message: 'negative amount "-1.00", …' }
  */
 export function unsignedAmountOf(text: string, exponent: number): number | { message: string } {
+  const fast = plainAmount(text, exponent);
+  if (fast >= 0) return fast;
   if (text.startsWith('-')) {
     return { message: `negative amount "${clip(text)}", camt amounts are unsigned (CdtDbtInd gives the direction)` };
   }
@@ -103,14 +158,48 @@ export function unsignedAmountOf(text: string, exponent: number): number | { mes
   return minor;
 }
 
-/** Minor-unit exponent of a currency the file names, or a message. */
+/**
+ * Fast path for `123` / `123.45` with at most the currency's decimals and at most 15
+ * digits: the minor units by arithmetic, or -1 to let the general path decide.
+ */
+function plainAmount(text: string, exponent: number): number {
+  const n = text.length;
+  if (n === 0 || n > 15) return -1;
+  let value = 0;
+  let decimals = -1;
+  for (let i = 0; i < n; i++) {
+    const c = text.charCodeAt(i);
+    if (c === 0x2e /* . */) {
+      if (decimals !== -1 || i === 0 || i === n - 1) return -1;
+      decimals = 0;
+      continue;
+    }
+    const dgt = c - 48;
+    if (dgt < 0 || dgt > 9) return -1;
+    value = value * 10 + dgt;
+    if (decimals !== -1) decimals++;
+  }
+  const used = decimals === -1 ? 0 : decimals;
+  if (used > exponent) return -1;
+  const minor = value * 10 ** (exponent - used);
+  return Number.isSafeInteger(minor) ? minor : -1;
+}
+
+/**
+ * Minor-unit exponent of a currency the file names, or a message.
+ * @example currencyExponent('KWD') // 3
+ * @example currencyExponent('EUX') // { message: 'unknown currency "EUX", …' }
+ */
 export function currencyExponent(code: string): number | { message: string } {
   if (!isKnownCurrency(code))
     return { message: `unknown currency "${clip(code)}", expected an ISO 4217 code such as EUR` };
   return minorUnitExponent(code) as number;
 }
 
-/** First child element with this local name in namespace `ns`. */
+/**
+ * First child element with this local name in namespace `ns`.
+ * @example child(ntry, 'Amt', ctx.ns)
+ */
 export function child(parent: XmlElement, localName: string, ns: string): XmlElement | undefined {
   const children = parent.children;
   for (let i = 0; i < children.length; i++) {
@@ -120,7 +209,10 @@ export function child(parent: XmlElement, localName: string, ns: string): XmlEle
   return undefined;
 }
 
-/** All child elements with this local name in namespace `ns`. */
+/**
+ * All child elements with this local name in namespace `ns`.
+ * @example children(ntry, 'NtryDtls', ctx.ns).length
+ */
 export function children(parent: XmlElement, localName: string, ns: string): XmlElement[] {
   const out: XmlElement[] = [];
   for (const c of parent.children) {
@@ -129,7 +221,10 @@ export function children(parent: XmlElement, localName: string, ns: string): Xml
   return out;
 }
 
-/** Element at a path of local names below `parent`, e.g. `descend(acct, ns, 'Id', 'IBAN')`. */
+/**
+ * Element at a path of local names below `parent`.
+ * @example descend(acct, ns, 'Id', 'IBAN')
+ */
 export function descend(parent: XmlElement, ns: string, ...names: string[]): XmlElement | undefined {
   let at: XmlElement | undefined = parent;
   for (const n of names) {
@@ -139,7 +234,10 @@ export function descend(parent: XmlElement, ns: string, ...names: string[]): Xml
   return at;
 }
 
-/** Own text of an element (text children joined), untrimmed. */
+/**
+ * Own text of an element (text children joined), untrimmed.
+ * @example rawText(ustrd) // ' text as written '
+ */
 export function rawText(el: XmlElement): string {
   const c = el.children;
   if (c.length === 1) {
@@ -151,12 +249,18 @@ export function rawText(el: XmlElement): string {
   return out;
 }
 
-/** Own text of an element, trimmed. */
+/**
+ * Own text of an element, trimmed; '' for undefined.
+ * @example textOf(child(ntry, 'AcctSvcrRef', ns)) // 'EXMP25062A0001'
+ */
 export function textOf(el: XmlElement | undefined): string {
   return el ? rawText(el).trim() : '';
 }
 
-/** Value of an unprefixed attribute. */
+/**
+ * Value of an unprefixed attribute.
+ * @example attr(amt, 'Ccy') // 'EUR'
+ */
 export function attr(el: XmlElement, name: string): string | undefined {
   for (const a of el.attributes) if (a.name === name) return a.value;
   return undefined;
@@ -168,6 +272,10 @@ const MAX_LISTED = 200;
 /**
  * Collects import problems for one file, capping the list so that a broken 100,000-entry
  * file gives a readable report (the count of the rest is kept).
+ * @example
+ * const problems = new ProblemCollector('march.xml');
+ * problems.error('Document/BkToCstmrStmt/Stmt[1]/Id', 12, 'missing, expected the statement id');
+ * problems.list(); // [{ file: 'march.xml', line: 12, element: '…/Id', message: '…', severity: 'error' }]
  */
 export class ProblemCollector {
   private readonly listed: ImportProblem[] = [];
