@@ -169,6 +169,7 @@ class DocumentReader {
         if (!this.skip(ev)) return;
       }
     }
+    if (this.broken) return;
     if (this.problems.errorCount === 0 && messages === 0) {
       this.problems.error('Document/BkToCstmrStmt', root.line, 'missing, expected the statement message');
     }

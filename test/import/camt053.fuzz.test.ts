@@ -92,6 +92,9 @@ function checkOutcome(r: ImportResult, file: string): void {
     expect(p.message.length).toBeGreaterThan(0);
     expect(p.severity === 'error' || p.severity === 'notice').toBe(true);
   }
+  // No problem is reported twice.
+  const keys = r.problems.map((p) => `${p.line}|${p.element}|${p.message}`);
+  expect(new Set(keys).size).toBe(keys.length);
   if (hasErrors(r)) {
     const located = r.problems.filter(
       (p) => p.severity === 'error' && ((p.element !== undefined && p.element !== '') || (p.line ?? 0) >= 1),

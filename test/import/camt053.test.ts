@@ -552,6 +552,21 @@ describe('camt.053 element rules and their errors', () => {
     expect(e?.line).toBe(cut.split('\n').length);
   });
 
+  it('reports a well-formedness error once, wherever it is', () => {
+    const good = doc('08', [stmt({ entries: [ntry()] })]);
+    for (const broken of [
+      good.replace('</BkToCstmrStmt>', '</BkToCstmrStmt>&bad;'),
+      good.replace('<Stmt>', '<Stmt><Id>x</Id'),
+      good.replace('</Document>', '</Document><Document/>'),
+      good.replace('<GrpHdr>', '<GrpHdr><MsgId>a</Msgid>'),
+    ]) {
+      const e = errors(broken);
+      expect(e, broken).toHaveLength(1);
+      expect(e[0]?.message).toMatch(/^XML is not well-formed: /);
+      expect(e[0]?.line).toBeGreaterThan(1);
+    }
+  });
+
   it('refuses a DOCTYPE before the root', () => {
     const [e] = errors(
       '<?xml version="1.0"?>\n<!DOCTYPE Document [<!ENTITY x "y">]>\n' +
