@@ -32,11 +32,7 @@ import { etsInitialStates } from './etsInitialStates';
 import { accurateMean } from './classicalDecomposition';
 import { DEFAULT_LOWER, DEFAULT_UPPER, etsParametersAllowed, type EtsEstimated } from './etsParameterSpace';
 import { nelderMead } from './nelderMead';
-
-function isConstant(y: Series): boolean {
-  for (let i = 1; i < y.length; i++) if (y[i] !== y[0]) return false;
-  return true;
-}
+import { isConstant } from '../stats/isConstant';
 
 /** Number of values in the full initial state that are free (the last seasonal one is implied). */
 function freeStateCount(spec: EtsSpec): number {
@@ -107,39 +103,23 @@ function summarise(a: Assembled): FittedEts {
 }
 
 /**
- * The exact fit forecast::ets returns for a constant series (simple exponential smoothing
- * with α = 0.99999 started at the value): ETS(A,N,N), zero errors, σ² = 0, log-likelihood
- * +Infinity and information criteria −Infinity.
+ * The fit forecast::ets returns for a constant series (equal to within R's all.equal
+ * tolerance): simple exponential smoothing with α = 0.99999 started at the first value.
+ * For an exactly constant series the errors are zero, σ² = 0, the log-likelihood is
+ * +Infinity and the information criteria are −Infinity.
  */
 function constantFit(y: Series): FittedEts {
-  const n = y.length;
-  const value = y[0] as number;
   const spec: EtsSpec = { error: 'A', trend: 'N', season: 'N', period: 1 };
-  const states = new Float64Array(n + 1).fill(value);
-  return {
-    kind: 'ets',
+  const fit = summarise({
+    y,
     spec,
-    method: etsMethodName(spec),
     parameters: { alpha: 0.99999, beta: null, gamma: null, phi: null },
-    initialState: Float64Array.of(value),
-    states,
-    stateWidth: 1,
-    lastState: Float64Array.of(value),
-    residuals: new Float64Array(n),
-    fitted: new Float64Array(n).fill(value),
-    n,
-    sse: 0,
-    loglik: Infinity,
-    gaussianLoglik: Infinity,
-    aic: -Infinity,
-    aicc: -Infinity,
-    bic: -Infinity,
-    informationParameters: 2,
-    sigma2: 0,
-    mse: 0,
-    constant: true,
+    initialState: Float64Array.of(y[0] as number),
+    estimatedCount: 2,
+    fixedCount: 0,
     optimizer: null,
-  };
+  });
+  return { ...fit, constant: true };
 }
 
 function checkFixed(name: string, value: number | undefined, present: boolean): void {

@@ -8,57 +8,15 @@
 import { EngineError } from '../core/errors';
 import type { Series } from './forecastTypes';
 import { accurateMean, classicalDecomposition } from './classicalDecomposition';
+import { leastSquares } from '../stats/leastSquares';
 import type { EtsSeason, EtsTrend } from './etsModel';
-
-/**
- * Least squares by Householder QR (columns of `x` are the regressors).
- * @returns coefficients, or null when the design is rank deficient.
- */
-function leastSquares(columns: Float64Array[], y: ArrayLike<number>): Float64Array | null {
-  const n = y.length;
-  const p = columns.length;
-  const a = columns.map((c) => Float64Array.from(c));
-  const b = Float64Array.from(y as ArrayLike<number>);
-  for (let k = 0; k < p; k++) {
-    const col = a[k] as Float64Array;
-    let norm = 0;
-    for (let i = k; i < n; i++) norm += (col[i] as number) ** 2;
-    norm = Math.sqrt(norm);
-    if (norm === 0) return null;
-    const alpha = (col[k] as number) > 0 ? -norm : norm;
-    const v = new Float64Array(n);
-    for (let i = k; i < n; i++) v[i] = col[i] as number;
-    v[k] = (v[k] as number) - alpha;
-    let vv = 0;
-    for (let i = k; i < n; i++) vv += (v[i] as number) ** 2;
-    if (vv === 0) continue;
-    const reflect = (target: Float64Array): void => {
-      let dot = 0;
-      for (let i = k; i < n; i++) dot += (v[i] as number) * (target[i] as number);
-      const f = (2 * dot) / vv;
-      for (let i = k; i < n; i++) target[i] = (target[i] as number) - f * (v[i] as number);
-    };
-    for (let j = k; j < p; j++) reflect(a[j] as Float64Array);
-    reflect(b);
-  }
-  const coef = new Float64Array(p);
-  for (let k = p - 1; k >= 0; k--) {
-    let s = b[k] as number;
-    for (let j = k + 1; j < p; j++) s -= ((a[j] as Float64Array)[k] as number) * (coef[j] as number);
-    const diag = (a[k] as Float64Array)[k] as number;
-    if (Math.abs(diag) < 1e-10 * Math.sqrt(n)) return null;
-    coef[k] = s / diag;
-  }
-  return coef;
-}
 
 /** Intercept and slope of y[0..count) on 1..count. */
 function lineFit(y: ArrayLike<number>, count: number): [number, number] {
   const t = new Float64Array(count);
   const one = new Float64Array(count).fill(1);
   for (let i = 0; i < count; i++) t[i] = i + 1;
-  const coef = leastSquares([one, t], Array.prototype.slice.call(y, 0, count) as number[]);
-  if (coef === null) throw new EngineError('NOT_ENOUGH_DATA', 'cannot fit a line to fewer than two points');
+  const coef = leastSquares([one, t], Array.prototype.slice.call(y, 0, count) as number[]).coefficients;
   return [coef[0] as number, coef[1] as number];
 }
 
@@ -76,7 +34,7 @@ function lineFit(y: ArrayLike<number>, count: number): [number, number] {
  * Complexity: O(n·m).
  *
  * @throws EngineError NOT_ENOUGH_DATA for a seasonal model with fewer than 4 values (or a
- *   singular regression), or a trend with fewer than 2.
+ *   singular regression), or a trend with fewer than 3.
  * @example etsInitialStates([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11, 12], 'A', 'N', 1) // [0, 1] (up to rounding)
  */
 export function etsInitialStates(y: Series, trend: EtsTrend, season: EtsSeason, period: number): Float64Array {
@@ -99,10 +57,7 @@ export function etsInitialStates(y: Series, trend: EtsTrend, season: EtsSeason, 
       }
       // With m = 2 the sine column vanishes (forecast's `fourier` drops it).
       const columns = m === 2 ? [one, t, cos] : [one, t, sin, cos];
-      const coef = leastSquares(columns, y);
-      if (coef === null) {
-        throw new EngineError('NOT_ENOUGH_DATA', 'too few values to start the seasonal states');
-      }
+      const coef = leastSquares(columns, y).coefficients;
       seasonal = new Float64Array(n);
       for (let i = 0; i < n; i++) seasonal[i] = (y[i] as number) - (coef[0] as number) - (coef[1] as number) * (i + 1);
     } else {
@@ -121,7 +76,7 @@ export function etsInitialStates(y: Series, trend: EtsTrend, season: EtsSeason, 
     if (maxn < 1) throw new EngineError('NOT_ENOUGH_DATA', 'no values to start the level');
     out.push(accurateMean(adjusted, 0, maxn));
   } else {
-    if (maxn < 2) throw new EngineError('NOT_ENOUGH_DATA', 'a trend needs at least two values');
+    if (maxn < 3) throw new EngineError('NOT_ENOUGH_DATA', 'a trend needs at least three values');
     let [l0, b0] = lineFit(adjusted, maxn);
     if (Math.abs(l0 + b0) < 1e-8) {
       l0 *= 1 + 0.001;

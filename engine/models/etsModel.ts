@@ -111,7 +111,11 @@ export interface FittedEts {
   readonly sigma2: number;
   /** SSE/n. */
   readonly mse: number;
-  /** True when the series was constant and an exact fit was returned (criteria are −Infinity). */
+  /**
+   * True when the series was constant (to within R's all.equal tolerance) and forecast's
+   * fit for that case was returned: ETS(A,N,N), α = 0.99999, ℓ0 = y0 (exactly constant:
+   * σ² = 0 and criteria −Infinity).
+   */
   readonly constant: boolean;
   /**
    * Optimiser outcome (null when nothing was estimated): total likelihood evaluations, the

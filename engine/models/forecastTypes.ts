@@ -5,6 +5,7 @@
  * can be stored in a report unchanged.
  */
 import { EngineError } from '../core/errors';
+import { requireFiniteSeries } from '../stats/requireFiniteSeries';
 
 /** A numeric series as models read it: never mutated. Plain arrays and Float64Array both fit. */
 export type Series = ArrayLike<number>;
@@ -77,15 +78,12 @@ export function checkHorizon(horizon: number): void {
 
 /**
  * Checks that every value of a series is finite (the engine zero-fills calendar days
- * before modelling, so a NaN here is a caller's bug, not missing data).
+ * before modelling, so a NaN here is a caller's bug, not missing data). The models share
+ * the series statistics' check.
  *
  * @throws EngineError INVALID_ARGUMENT at the first non-finite value.
  * @example checkFinite([1, 2, 3], 'y') // no error
  */
 export function checkFinite(y: Series, name = 'series'): void {
-  for (let i = 0; i < y.length; i++) {
-    if (!Number.isFinite(y[i])) {
-      throw new EngineError('INVALID_ARGUMENT', `${name}[${i}] is not a finite number (${y[i]})`);
-    }
-  }
+  requireFiniteSeries(y, 0, name);
 }
