@@ -225,7 +225,8 @@ function remittanceOf(tx: XmlElement, ns: string): string {
       const piece = rawText(c);
       if (previousLength === -1) unstructured = piece;
       else unstructured += (previousLength >= USTRD_MAX ? '' : ' ') + piece;
-      previousLength = codePointLength(piece);
+      // Code points never outnumber UTF-16 units, so only long pieces need counting.
+      previousLength = piece.length < USTRD_MAX ? piece.length : codePointLength(piece);
     } else if (c.localName === 'Strd') {
       const ref = textOf(descend(c, ns, 'CdtrRefInf', 'Ref'));
       if (ref) refs.push(ref);
