@@ -103,6 +103,7 @@ export interface FittedEts {
   readonly gaussianLoglik: number;
   /** AIC = −2·loglik + 2k, with k = estimated parameters + initial states + 1 (σ²), as forecast::ets. */
   readonly aic: number;
+  /** AICc = AIC + 2k(k + 1)/(n − k − 1); +Infinity when n − k − 1 = 0 (as forecast). */
   readonly aicc: number;
   readonly bic: number;
   /** Number k used in the information criteria. */
