@@ -22,17 +22,32 @@ export interface DuplicateCandidate {
   readonly bankRef?: string;
 }
 
-interface PoolItem {
+/** A kept transaction as the index remembers it. */
+export interface KeptEntry {
   readonly id: string;
   /** The bank id known for this kept entry (its own, or one later linked to it). */
   ref: string | undefined;
 }
 
-/** Mutable state carried from file to file while a ledger is built. Not plain data: internal. */
+/**
+ * Mutable state carried from file to file while a ledger is built. Not plain data: internal.
+ * Maps are nested by account so that keys are the bank ids and fingerprints themselves (no
+ * concatenated key strings to build and hash per entry).
+ */
 export interface DuplicateIndex {
-  readonly refs: Map<string, string>;
-  readonly pools: Map<string, PoolItem[]>;
-  readonly items: Map<string, PoolItem>;
+  /** accountId → bank id → the kept transaction it names. */
+  readonly refs: Map<string, Map<string, KeptEntry>>;
+  /** accountId → fingerprint → kept transactions with it, in order. */
+  readonly pools: Map<string, Map<string, KeptEntry[]>>;
+}
+
+function inner<V>(outer: Map<string, Map<string, V>>, key: string): Map<string, V> {
+  let map = outer.get(key);
+  if (map === undefined) {
+    map = new Map<string, V>();
+    outer.set(key, map);
+  }
+  return map;
 }
 
 /** Placeholder bank ids that identify nothing (MT940 "NONREF" and the like). */
@@ -47,57 +62,54 @@ export function usableBankRef(bankRef: string | undefined): string | undefined {
   return ref && !PLACEHOLDER_REF.test(ref) ? ref : undefined;
 }
 
-const SEP = '\u0000';
-
 /** An empty index for a new ledger. */
 export function createDuplicateIndex(): DuplicateIndex {
-  return { refs: new Map(), pools: new Map(), items: new Map() };
+  return { refs: new Map(), pools: new Map() };
 }
 
 /**
  * Finds which entries of one file are already in the ledger from earlier files.
  *
- * @returns per candidate the id of the earlier kept transaction it repeats, or null when new.
+ * @returns per candidate the earlier kept transaction it repeats, or null when it is new.
  * @example
  * const index = createDuplicateIndex();
  * findDuplicates(index, [{ accountId: 'A', fingerprint: 'f' }]); // [null]
  */
-export function findDuplicates(index: DuplicateIndex, candidates: readonly DuplicateCandidate[]): (string | null)[] {
-  const duplicateOf: (string | null)[] = new Array<string | null>(candidates.length).fill(null);
-  const claimed = new Set<string>();
+export function findDuplicates(index: DuplicateIndex, candidates: readonly DuplicateCandidate[]): (KeptEntry | null)[] {
+  const duplicateOf: (KeptEntry | null)[] = new Array<KeptEntry | null>(candidates.length).fill(null);
+  const claimed = new Set<KeptEntry>();
   // 1. Bank ids.
   candidates.forEach((c, i) => {
     const ref = usableBankRef(c.bankRef);
     if (ref === undefined) return;
-    const earlier = index.refs.get(c.accountId + SEP + ref);
+    const earlier = index.refs.get(c.accountId)?.get(ref);
     if (earlier !== undefined) {
       duplicateOf[i] = earlier;
       claimed.add(earlier);
     }
   });
   // 2. Fingerprints, pool by pool, in file order.
-  const groups = new Map<string, number[]>();
+  const groups = new Map<KeptEntry[], number[]>();
   candidates.forEach((c, i) => {
     if (duplicateOf[i] !== null) return;
-    const key = c.accountId + SEP + c.fingerprint;
-    const pool = index.pools.get(key);
+    const pool = index.pools.get(c.accountId)?.get(c.fingerprint);
     if (pool === undefined) return;
-    const members = groups.get(key);
+    const members = groups.get(pool);
     if (members) members.push(i);
-    else groups.set(key, [i]);
+    else groups.set(pool, [i]);
   });
-  for (const [key, members] of groups) {
-    const pool = (index.pools.get(key) as PoolItem[]).filter((item) => !claimed.has(item.id));
+  for (const [earlierPool, members] of groups) {
+    const pool = earlierPool.filter((item) => !claimed.has(item));
     const withRef = pool.filter((item) => item.ref !== undefined);
     const withoutRef = pool.filter((item) => item.ref === undefined);
     let r = 0;
     let n = 0;
     for (const i of members) {
       const hasRef = usableBankRef((candidates[i] as DuplicateCandidate).bankRef) !== undefined;
-      let match: PoolItem | undefined;
+      let match: KeptEntry | undefined;
       if (!hasRef && r < withRef.length) match = withRef[r++];
       else if (n < withoutRef.length) match = withoutRef[n++];
-      if (match) duplicateOf[i] = match.id;
+      if (match) duplicateOf[i] = match;
     }
   }
   return duplicateOf;
@@ -107,33 +119,35 @@ export function findDuplicates(index: DuplicateIndex, candidates: readonly Dupli
  * Records a processed file: kept entries join the pools under their new ids, bank ids are
  * remembered (a duplicate's bank id is linked to the transaction it repeats).
  *
- * @param ids per candidate: the id of the kept transaction, or for a duplicate the id
- *   `findDuplicates` returned.
- * @param kept per candidate: true when it was kept.
+ * @param keptIds per candidate: the id given to it when kept, or null for a duplicate.
+ * @param duplicateOf what `findDuplicates` returned for the same candidates.
  */
 export function recordFile(
   index: DuplicateIndex,
   candidates: readonly DuplicateCandidate[],
-  ids: readonly string[],
-  kept: readonly boolean[],
+  keptIds: readonly (string | null)[],
+  duplicateOf: readonly (KeptEntry | null)[],
 ): void {
+  let accountId: string | undefined;
+  let pools = new Map<string, KeptEntry[]>();
+  let refs = new Map<string, KeptEntry>();
   candidates.forEach((c, i) => {
-    const id = ids[i] as string;
+    if (c.accountId !== accountId) {
+      accountId = c.accountId;
+      pools = inner(index.pools, accountId);
+      refs = inner(index.refs, accountId);
+    }
     const ref = usableBankRef(c.bankRef);
-    if (kept[i]) {
-      const item: PoolItem = { id, ref };
-      index.items.set(id, item);
-      const key = c.accountId + SEP + c.fingerprint;
-      const pool = index.pools.get(key);
+    const id = keptIds[i];
+    let item = duplicateOf[i] ?? null;
+    if (item === null && id !== null && id !== undefined) {
+      item = { id, ref };
+      const pool = pools.get(c.fingerprint);
       if (pool) pool.push(item);
-      else index.pools.set(key, [item]);
-    } else if (ref !== undefined) {
-      const item = index.items.get(id);
-      if (item && item.ref === undefined) item.ref = ref;
+      else pools.set(c.fingerprint, [item]);
+    } else if (item !== null && ref !== undefined && item.ref === undefined) {
+      item.ref = ref;
     }
-    if (ref !== undefined) {
-      const refKey = c.accountId + SEP + ref;
-      if (!index.refs.has(refKey)) index.refs.set(refKey, id);
-    }
+    if (item !== null && ref !== undefined && !refs.has(ref)) refs.set(ref, item);
   });
 }
