@@ -17,16 +17,7 @@ import {
   toDayNumber,
 } from '../../engine/core/dates';
 import { EngineError } from '../../engine/core/errors';
-
-/** The `code` of the EngineError a call throws, or 'none'. */
-function errorCode(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (e) {
-    return e instanceof EngineError ? e.code : 'not an EngineError';
-  }
-  return 'none';
-}
+import { errorCode } from './errorCode';
 
 describe('isLeapYear', () => {
   it('follows the Gregorian rule: every 4th year, not centuries, but every 400th', () => {

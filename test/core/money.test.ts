@@ -1,16 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { exponentOf, formatMinor, fromMajor, parsePlainDecimal, toMajor } from '../../engine/core/money';
 import { isKnownCurrency, minorUnitExponent } from '../../engine/core/currency';
-import { EngineError } from '../../engine/core/errors';
-
-function errorCode(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (e) {
-    return e instanceof EngineError ? e.code : 'not an EngineError';
-  }
-  return 'none';
-}
+import { errorCode } from './errorCode';
 
 describe('ISO 4217 minor-unit exponents', () => {
   it('knows the exponents of common and unusual currencies', () => {

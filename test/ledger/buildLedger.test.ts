@@ -1,21 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { buildLedger } from '../../engine/ledger/buildLedger';
-import { EngineError } from '../../engine/core/errors';
 import { balance, entry, result, statement } from './make';
+import { errorCode } from '../core/errorCode';
 
 // Invented identifiers (the bank code EBBL is made up) with valid ISO 13616 check digits.
 const IBAN = 'NL94 EBBL 0123 4567 89';
 const IBAN_COMPACT = 'NL94EBBL0123456789';
 const OTHER_IBAN = 'NL46EBBL0987654321';
-
-function errorCode(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (e) {
-    return e instanceof EngineError ? e.code : 'not an EngineError';
-  }
-  return 'none';
-}
 
 describe('buildLedger: accounts', () => {
   it('matches one account across files by the normalised IBAN', () => {

@@ -1,20 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { buildLedger } from '../../engine/ledger/buildLedger';
 import { dailySeries } from '../../engine/ledger/dailySeries';
-import { EngineError } from '../../engine/core/errors';
 import { balance, entry, result, statement } from './make';
+import { errorCode } from '../core/errorCode';
 
 const BUSINESS = 'NL94EBBL0123456789';
 const RESERVE = 'NL46EBBL0987654321';
-
-function errorCode(fn: () => unknown): string {
-  try {
-    fn();
-  } catch (e) {
-    return e instanceof EngineError ? e.code : 'not an EngineError';
-  }
-  return 'none';
-}
 
 const ledger = buildLedger([
   result('business.xml', [
