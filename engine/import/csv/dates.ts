@@ -126,10 +126,10 @@ function readDigits(text: string, end: number, max: number): number {
   return value;
 }
 
-/** Splits a cell into three digit runs; false when it is not shaped like a date. */
-function splitDate(text: string): boolean {
-  let end = text.length;
-  cursor = 0;
+/** Splits text[from, to) into three digit runs; false when it is not shaped like a date. */
+function splitDate(text: string, from = 0, to = text.length): boolean {
+  let end = to;
+  cursor = from;
   while (cursor < end && isBlank(text.charCodeAt(cursor))) cursor++;
   while (end > cursor && isBlank(text.charCodeAt(end - 1))) end--;
   const a = readDigits(text, end, 8);
@@ -196,7 +196,31 @@ export interface DateInference {
  * @example inferDateFormat(['03/04/2025'], [2]).ambiguous // true
  */
 export function inferDateFormat(cells: readonly string[], lines: readonly number[]): DateInference {
-  let reference = -1;
+  const inference = createDateFormatInference();
+  for (let k = 0; k < cells.length; k++) inference.add(cells[k] as string, lines[k] as number);
+  return inference.result();
+}
+
+/** `inferDateFormat` one cell at a time, without collecting the cells. */
+export interface DateFormatInference {
+  /** Looks at one date cell (or the span `start`–`end` of it) found on `line`; cheap once the format is settled. */
+  add(cell: string, line: number, start?: number, end?: number): void;
+  result(): DateInference;
+}
+
+/**
+ * Creates an incremental `inferDateFormat`: `add` every date cell, then read `result()`.
+ * Year-first and dotted files are settled by their first date, so the rest is skipped.
+ *
+ * @example
+ * const i = createDateFormatInference();
+ * i.add('03/04/2025', 2);
+ * i.add('13/04/2025', 3);
+ * i.result().format?.order // 'DMY'
+ */
+export function createDateFormatInference(): DateFormatInference {
+  let reference = false;
+  let settled = false;
   let separator = 0;
   let yearFirst = false;
   let thirdDigits = 0;
@@ -206,78 +230,87 @@ export function inferDateFormat(cells: readonly string[], lines: readonly number
   let monthFirstCell = '';
   let differLine = 0;
   let differCell = '';
-  for (let k = 0; k < cells.length; k++) {
-    const cell = cells[k] as string;
-    if (cell === '' || !splitDate(cell)) continue;
-    const isYearFirst = parts.firstDigits === 4;
-    if (reference < 0) {
-      reference = k;
-      separator = parts.separator;
-      yearFirst = isYearFirst;
-      thirdDigits = parts.thirdDigits;
-    } else if (
-      parts.separator !== separator ||
-      isYearFirst !== yearFirst ||
-      (!yearFirst && parts.thirdDigits !== thirdDigits)
-    ) {
-      continue; // a different shape: the conversion names it
-    }
-    if (yearFirst) continue;
-    if (parts.first > 12 && dayFirstLine === 0) {
-      dayFirstLine = lines[k] as number;
-      dayFirstCell = cell;
-    }
-    if (parts.second > 12 && monthFirstLine === 0) {
-      monthFirstLine = lines[k] as number;
-      monthFirstCell = cell;
-    }
-    if (parts.first !== parts.second && differLine === 0) {
-      differLine = lines[k] as number;
-      differCell = cell;
-    }
-  }
-  if (reference < 0) return { ambiguous: false };
-  const sep = separatorOf(separator);
-  if (yearFirst) return { format: { order: 'YMD', separator: sep, twoDigitYear: false }, ambiguous: false };
-  const twoDigitYear = thirdDigits === 2;
-  const dmy: CsvDateFormat = { order: 'DMY', separator: sep, twoDigitYear };
-  const mdy: CsvDateFormat = { order: 'MDY', separator: sep, twoDigitYear };
-  if (sep === '.') return { format: dmy, ambiguous: false };
-  if (dayFirstLine > 0 && monthFirstLine > 0) {
-    return {
-      ambiguous: false,
-      problem: {
-        line: monthFirstLine,
-        message:
-          `date "${monthFirstCell}" puts the month first, but line ${dayFirstLine} ("${dayFirstCell}") ` +
-          `puts the day first, expected one date format in the file`,
-      },
-    };
-  }
-  if (dayFirstLine > 0) return { format: dmy, ambiguous: false };
-  if (monthFirstLine > 0) return { format: mdy, ambiguous: false };
-  if (differLine === 0) return { format: dmy, ambiguous: false };
   return {
-    ambiguous: true,
-    problem: {
-      line: differLine,
-      message:
-        `date "${differCell}" can be read as ${dateFormatLabel(dmy)} or ${dateFormatLabel(mdy)} and no date in the ` +
-        `file has a number above 12 to settle it, expected an explicit csvMapping.dateFormat ` +
-        `("${dateFormatName(dmy)}" or "${dateFormatName(mdy)}")`,
+    add(cell, line, start = 0, end = cell.length) {
+      if (settled || start >= end || !splitDate(cell, start, end)) return;
+      const isYearFirst = parts.firstDigits === 4;
+      if (!reference) {
+        reference = true;
+        separator = parts.separator;
+        yearFirst = isYearFirst;
+        thirdDigits = parts.thirdDigits;
+        if (yearFirst || separator === 0x2e) {
+          settled = true;
+          return;
+        }
+      } else if (parts.separator !== separator || isYearFirst !== yearFirst || parts.thirdDigits !== thirdDigits) {
+        return; // a different shape: the conversion names it
+      }
+      if (parts.first > 12 && dayFirstLine === 0) {
+        dayFirstLine = line;
+        dayFirstCell = cell.slice(start, end).trim();
+      }
+      if (parts.second > 12 && monthFirstLine === 0) {
+        monthFirstLine = line;
+        monthFirstCell = cell.slice(start, end).trim();
+      }
+      if (parts.first !== parts.second && differLine === 0) {
+        differLine = line;
+        differCell = cell.slice(start, end).trim();
+      }
+      if (dayFirstLine > 0 && monthFirstLine > 0) settled = true;
+    },
+    result() {
+      if (!reference) return { ambiguous: false };
+      const sep = separatorOf(separator);
+      if (yearFirst) return { format: { order: 'YMD', separator: sep, twoDigitYear: false }, ambiguous: false };
+      const twoDigitYear = thirdDigits === 2;
+      const dmy: CsvDateFormat = { order: 'DMY', separator: sep, twoDigitYear };
+      const mdy: CsvDateFormat = { order: 'MDY', separator: sep, twoDigitYear };
+      if (sep === '.') return { format: dmy, ambiguous: false };
+      if (dayFirstLine > 0 && monthFirstLine > 0) {
+        return {
+          ambiguous: false,
+          problem: {
+            line: monthFirstLine,
+            message:
+              `date "${monthFirstCell}" puts the month first, but line ${dayFirstLine} ("${dayFirstCell}") ` +
+              `puts the day first, expected one date format in the file`,
+          },
+        };
+      }
+      if (dayFirstLine > 0) return { format: dmy, ambiguous: false };
+      if (monthFirstLine > 0) return { format: mdy, ambiguous: false };
+      if (differLine === 0) return { format: dmy, ambiguous: false };
+      return {
+        ambiguous: true,
+        problem: {
+          line: differLine,
+          message:
+            `date "${differCell}" can be read as ${dateFormatLabel(dmy)} or ${dateFormatLabel(mdy)} and no date in the ` +
+            `file has a number above 12 to settle it, expected an explicit csvMapping.dateFormat ` +
+            `("${dateFormatName(dmy)}" or "${dateFormatName(mdy)}")`,
+        },
+      };
     },
   };
 }
 
 /**
- * Converts a date cell in `format` to `YYYY-MM-DD`.
+ * Converts a date cell in `format` to `YYYY-MM-DD`. `start`/`end` read a span of `text`.
+ * The last result is remembered, so a run of rows on one day makes one string.
  *
  * @returns the calendar date, or undefined (then `describeDateError` says why).
  * @example parseDateCell('29.02.2024', { order: 'DMY', separator: '.', twoDigitYear: false }) // '2024-02-29'
  * @example parseDateCell('31.04.2025', { order: 'DMY', separator: '.', twoDigitYear: false }) // undefined
  */
-export function parseDateCell(text: string, format: CsvDateFormat): CalendarDate | undefined {
-  if (!splitDate(text) || separatorOf(parts.separator) !== format.separator) return undefined;
+export function parseDateCell(
+  text: string,
+  format: CsvDateFormat,
+  start = 0,
+  end = text.length,
+): CalendarDate | undefined {
+  if (!splitDate(text, start, end) || separatorOf(parts.separator) !== format.separator) return undefined;
   let year: number;
   let month: number;
   let day: number;
@@ -292,8 +325,22 @@ export function parseDateCell(text: string, format: CsvDateFormat): CalendarDate
     month = format.order === 'DMY' ? parts.second : parts.first;
     day = format.order === 'DMY' ? parts.first : parts.second;
   }
-  return isValidYmd(year, month, day) ? formatYmd(year, month, day) : undefined;
+  if (year === lastYear && month === lastMonth && day === lastDay) return lastIso;
+  if (!isValidYmd(year, month, day)) return undefined;
+  lastYear = year;
+  lastMonth = month;
+  lastDay = day;
+  lastIso = year >= 1000 ? `${year}-${TWO_DIGITS[month]}-${TWO_DIGITS[day]}` : formatYmd(year, month, day);
+  return lastIso;
 }
+
+let lastYear = 0;
+let lastMonth = 0;
+let lastDay = 0;
+let lastIso = '';
+
+/** '00' … '31', so formatting a date makes one string, not three padded ones. */
+const TWO_DIGITS: readonly string[] = Array.from({ length: 32 }, (_, k) => String(k).padStart(2, '0'));
 
 /**
  * Says why `parseDateCell(text, format)` failed, as "what was found, what was expected".

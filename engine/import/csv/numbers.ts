@@ -122,10 +122,10 @@ function takeLetters(word: string): boolean {
   return false;
 }
 
-/** Strips signs, brackets, symbols and codes from both ends of `text`; false on a bad cell. */
-function readAffixes(text: string): boolean {
-  let i = 0;
-  let j = text.length;
+/** Strips signs, brackets, symbols and codes from both ends of text[from, to); false on a bad cell. */
+function readAffixes(text: string, from: number, to: number): boolean {
+  let i = from;
+  let j = to;
   negative = false;
   positive = false;
   parentheses = false;
@@ -221,10 +221,12 @@ function groupClass(c: number): number {
  * `1.234,56` reveals a decimal comma; `1,234` (one separator, three digits after it, one to
  * three before) could be either and only counts as a hint.
  *
+ * `start`/`end` look at a span of `text` without cutting it out.
+ *
  * @example inspectAmount('1.234,56 EUR').evidence // 1
  * @example inspectAmount('1,234').evidence // 3
  */
-export function inspectAmount(text: string): AmountInspection {
+export function inspectAmount(text: string, start = 0, end = text.length): AmountInspection {
   const r = inspection;
   r.ok = false;
   r.evidence = 0;
@@ -232,7 +234,7 @@ export function inspectAmount(text: string): AmountInspection {
   r.parentheses = false;
   r.trailingMinus = false;
   r.thousands = '';
-  if (!readAffixes(text)) return r;
+  if (!readAffixes(text, start, end)) return r;
   r.currency = currency;
   r.parentheses = parentheses;
   r.trailingMinus = trailingMinus;
@@ -291,6 +293,7 @@ function example(format: CsvNumberFormat): string {
  *
  * @param exponent the currency's minor-unit exponent (EUR 2, JPY 0, KWD 3).
  * @param currencyCode named in the message when the cell has too many decimals.
+ * @param start, end a span of `text` to read (default: all of it), so a cell need not be cut out.
  * @returns the minor units, or a string saying what is wrong with the cell
  *   ("has 3 decimals, expected at most 2 for EUR"); extra decimals that are all zero are
  *   accepted, as `parsePlainDecimal` in engine/core/money.ts does.
@@ -303,8 +306,10 @@ export function readAmount(
   format: CsvNumberFormat,
   exponent: number,
   currencyCode: string,
+  start = 0,
+  end = text.length,
 ): number | string {
-  if (!readAffixes(text)) {
+  if (!readAffixes(text, start, end)) {
     return affixProblem === 'is not a number'
       ? `is not a number, expected a number like ${example(format)}`
       : affixProblem;

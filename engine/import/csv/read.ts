@@ -20,7 +20,7 @@ import { rankDelimiters, type CsvDelimiter } from './delimiter';
 import {
   dateFormatName,
   describeDateError,
-  inferDateFormat,
+  createDateFormatInference,
   parseDateCell,
   parseDateFormatName,
   type CsvDateFormat,
@@ -56,7 +56,7 @@ import {
 import { detectRowOrder, type CsvRowOrder } from './order';
 import { readPreamble, type PreambleInfo } from './preamble';
 import { createProblemCollector, type ProblemCollector } from './problems';
-import { cellAt, isBlankRow, rowCells, rowWidth, scanCsv, type CsvTable } from './scan';
+import { cellAt, cellSpan, isBlankRow, rowCells, rowWidth, scanCsv, type CellSpan, type CsvTable } from './scan';
 
 /** What one read of a CSV text produces. */
 export interface CsvReadOutcome {
@@ -438,7 +438,10 @@ function layoutStep(reading: Reading): boolean {
   for (const r of dataRows) {
     const w = rowWidth(table, r);
     let ok = w >= minWidth;
-    if (ok && w > width) for (let c = width; c < w && ok; c++) ok = cellAt(table, r, c).trim() === '';
+    if (ok && w > width) {
+      const span: CellSpan = { text: '', start: 0, end: 0 };
+      for (let c = width; c < w && ok; c++) ok = cellSpan(table, r, c, span).end === span.start;
+    }
     if (ok) valid.push(r);
     else {
       const hint = w > width ? ' (an unquoted delimiter inside a field?)' : '';
@@ -485,25 +488,31 @@ function formatStep(reading: Reading): boolean {
   const amountCols: number[] = [];
   for (const c of [columns.amount, columns.debit, columns.credit, columns.balance])
     if (c !== undefined) amountCols.push(c);
-  const dateCells: string[] = [];
-  const dateLines: number[] = [];
+  const dates = createDateFormatInference();
+  const span: CellSpan = { text: '', start: 0, end: 0 };
+  let acceptedCurrency = '';
   let accountValue: string | undefined;
+  let accountRaw = '';
   let accountLine = 0;
   for (const r of reading.rows) {
     const line = lineOf(reading, r);
     if (columns.currency !== undefined) {
-      const cell = cellAt(table, r, columns.currency);
-      if (cell.trim() !== '') {
+      cellSpan(table, r, columns.currency, span);
+      if (span.end > span.start && !spanIs(span, acceptedCurrency)) {
+        const cell = span.text.slice(span.start, span.end);
         const m = currencies.note(cell, line, 'currency column');
         if (m) problems.error(line, m);
+        else acceptedCurrency = cell;
       }
     }
     if (columns.account !== undefined) {
-      const raw = cellAt(table, r, columns.account);
-      if (raw.trim() !== '') {
+      cellSpan(table, r, columns.account, span);
+      if (span.end > span.start && !spanIs(span, accountRaw)) {
+        const raw = span.text.slice(span.start, span.end);
         const value = normaliseAccountIdentifier(raw);
         if (accountValue === undefined) {
           accountValue = value;
+          accountRaw = raw;
           accountLine = line;
         } else if (value !== accountValue) {
           problems.error(
@@ -514,9 +523,9 @@ function formatStep(reading: Reading): boolean {
       }
     }
     for (const c of amountCols) {
-      const cell = cellAt(table, r, c);
-      if (cell === '') continue;
-      const info = inspectAmount(cell);
+      cellSpan(table, r, c, span);
+      if (span.end === span.start) continue;
+      const info = inspectAmount(span.text, span.start, span.end);
       if (!info.ok) continue;
       if (info.evidence === 1) ev.comma++;
       else if (info.evidence === 2) ev.point++;
@@ -530,11 +539,11 @@ function formatStep(reading: Reading): boolean {
         if (m) problems.error(line, m);
       }
     }
-    dateCells.push(cellAt(table, r, columns.date));
-    dateLines.push(line);
+    cellSpan(table, r, columns.date, span);
+    dates.add(span.text, line, span.start, span.end);
     if (columns.valueDate !== undefined) {
-      dateCells.push(cellAt(table, r, columns.valueDate));
-      dateLines.push(line);
+      cellSpan(table, r, columns.valueDate, span);
+      dates.add(span.text, line, span.start, span.end);
     }
   }
   reading.account = accountValue;
@@ -593,7 +602,7 @@ function formatStep(reading: Reading): boolean {
   if (mapping?.dateFormat !== undefined) {
     reading.dateFormat = parseDateFormatName(mapping.dateFormat);
   } else {
-    const inferred = inferDateFormat(dateCells, dateLines);
+    const inferred = dates.result();
     reading.dateAmbiguous = inferred.ambiguous;
     if (inferred.problem) {
       problems.error(inferred.problem.line, inferred.problem.message);
@@ -623,10 +632,13 @@ interface RowData {
   lines: number[];
 }
 
-function optionalText(table: CsvTable, row: number, col: number | undefined): string | undefined {
-  if (col === undefined) return undefined;
-  const text = cellAt(table, row, col).trim();
-  return text === '' ? undefined : text;
+/** True when the span holds exactly `value` (compared in place, nothing cut out). */
+function spanIs(span: CellSpan, value: string): boolean {
+  return span.end - span.start === value.length && value !== '' && span.text.startsWith(value, span.start);
+}
+
+function spanText(span: CellSpan): string {
+  return span.text.slice(span.start, span.end);
 }
 
 /** Step 4: every row to an entry. */
@@ -642,60 +654,84 @@ function rowStep(reading: Reading): RowData {
       : { decimal: reading.decimal as DecimalSeparator };
   const negate = mapping?.negateAmounts === true;
   const data: RowData = { entries: [], dates: [], amounts: [], balances: [], pending: [], lines: [] };
-  const amountAt = (row: number, col: number, label: string, line: number): number | undefined => {
-    const text = cellAt(table, row, col);
-    const value = readAmount(text, numbers, exponent, currency);
+  const span: CellSpan = { text: '', start: 0, end: 0 };
+  /** Reads the amount in `span`, or reports it. */
+  const amountIn = (label: string, line: number): number | undefined => {
+    const value = readAmount(span.text, numbers, exponent, currency, span.start, span.end);
     if (typeof value === 'string') {
-      problems.error(line, `${label} "${text.trim()}" ${value}`);
+      problems.error(line, `${label} "${spanText(span)}" ${value}`);
       return undefined;
     }
     return value;
   };
+  /** Text of an optional column, trimmed; undefined when empty. */
+  const optional = (row: number, col: number | undefined): string | undefined => {
+    if (col === undefined) return undefined;
+    cellSpan(table, row, col, span);
+    if (span.end === span.start) return undefined;
+    const text = spanText(span).trim();
+    return text === '' ? undefined : text;
+  };
   const description = columns.description;
+  // Indicator and status cells repeat a few words: decide each distinct word once.
+  let lastMark = '';
+  let lastSign: -1 | 0 | 1 = 0;
+  let lastStatusText = '';
+  let lastStatus: 'booked' | 'pending' | undefined = 'booked';
   for (const r of reading.rows) {
     const line = lineOf(reading, r);
     const errorsBefore = problems.errorCount;
-    const dateText = cellAt(table, r, columns.date);
-    const bookingDate = parseDateCell(dateText, format);
-    if (bookingDate === undefined) problems.error(line, describeDateError(dateText, format));
+    cellSpan(table, r, columns.date, span);
+    const bookingDate = parseDateCell(span.text, format, span.start, span.end);
+    if (bookingDate === undefined) problems.error(line, describeDateError(cellAt(table, r, columns.date), format));
     let valueDate: CalendarDate | undefined;
     if (columns.valueDate !== undefined) {
-      const text = cellAt(table, r, columns.valueDate);
-      if (text.trim() !== '') {
-        valueDate = parseDateCell(text, format);
-        if (valueDate === undefined) problems.error(line, describeDateError(text, format, 'value date'));
+      cellSpan(table, r, columns.valueDate, span);
+      if (span.end > span.start) {
+        valueDate = parseDateCell(span.text, format, span.start, span.end);
+        if (valueDate === undefined) {
+          problems.error(line, describeDateError(cellAt(table, r, columns.valueDate), format, 'value date'));
+        }
       }
     }
     let amount: number | undefined;
     if (columns.amount !== undefined) {
-      if (cellAt(table, r, columns.amount).trim() === '')
+      cellSpan(table, r, columns.amount, span);
+      if (span.end === span.start) {
         problems.error(
           line,
           `amount is empty, expected a number like ${formatForMessage(-123456, 2, numbers.decimal)}`,
         );
-      else amount = amountAt(r, columns.amount, 'amount', line);
+      } else amount = amountIn('amount', line);
       if (amount !== undefined && columns.indicator !== undefined) {
-        const mark = cellAt(table, r, columns.indicator).trim();
-        const sign = indicatorSign(mark);
-        if (sign === 0) {
+        const amountText = spanText(span);
+        cellSpan(table, r, columns.indicator, span);
+        if (!spanIs(span, lastMark)) {
+          lastMark = spanText(span);
+          lastSign = indicatorSign(lastMark);
+        }
+        const mark = spanText(span);
+        if (lastSign === 0 || mark === '') {
           problems.error(
             line,
             `indicator "${mark}" is not a debit/credit mark, expected D/C, DR/CR, S/H, Debit/Credit, Af/Bij or -/+`,
           );
           amount = undefined;
-        } else if (amount < 0 && sign > 0) {
+        } else if (amount < 0 && lastSign > 0) {
           problems.error(
             line,
-            `amount "${cellAt(table, r, columns.amount).trim()}" is negative but the indicator "${mark}" says credit, expected an unsigned amount`,
+            `amount "${amountText}" is negative but the indicator "${mark}" says credit, expected an unsigned amount`,
           );
           amount = undefined;
-        } else amount = amount === 0 ? 0 : sign * Math.abs(amount);
+        } else amount = amount === 0 ? 0 : lastSign * Math.abs(amount);
       }
     } else {
-      const debitText = cellAt(table, r, columns.debit as number).trim();
-      const creditText = cellAt(table, r, columns.credit as number).trim();
-      const debit = debitText === '' ? undefined : amountAt(r, columns.debit as number, 'debit', line);
-      const credit = creditText === '' ? undefined : amountAt(r, columns.credit as number, 'credit', line);
+      cellSpan(table, r, columns.debit as number, span);
+      const debitText = spanText(span);
+      const debit = debitText === '' ? undefined : amountIn('debit', line);
+      cellSpan(table, r, columns.credit as number, span);
+      const creditText = spanText(span);
+      const credit = creditText === '' ? undefined : amountIn('credit', line);
       if (debitText === '' && creditText === '') {
         problems.error(line, 'debit and credit are both empty, expected an amount in one of them');
       } else if (debit !== undefined && credit !== undefined && debit !== 0 && credit !== 0) {
@@ -707,36 +743,42 @@ function rowStep(reading: Reading): RowData {
     if (amount !== undefined && negate && amount !== 0) amount = -amount;
     let pending = false;
     if (columns.status !== undefined) {
-      const text = cellAt(table, r, columns.status).trim();
-      const status = bookingStatus(text);
-      if (status === undefined) {
+      cellSpan(table, r, columns.status, span);
+      if (span.end === span.start) lastStatus = 'booked';
+      else if (!spanIs(span, lastStatusText)) {
+        lastStatusText = spanText(span);
+        lastStatus = bookingStatus(lastStatusText);
+      }
+      if (lastStatus === undefined) {
         problems.error(
           line,
-          `status "${text}" is not a known booking status, expected booked or pending (or no status column in csvMapping)`,
+          `status "${spanText(span)}" is not a known booking status, expected booked or pending (or no status column in csvMapping)`,
         );
-      } else pending = status === 'pending';
+      } else pending = lastStatus === 'pending';
+      if (span.end === span.start) lastStatusText = '';
     }
     let balance = Number.NaN;
-    if (columns.balance !== undefined && cellAt(table, r, columns.balance).trim() !== '') {
-      balance = amountAt(r, columns.balance, 'balance', line) ?? Number.NaN;
+    if (columns.balance !== undefined) {
+      cellSpan(table, r, columns.balance, span);
+      if (span.end > span.start) balance = amountIn('balance', line) ?? Number.NaN;
     }
     if (problems.errorCount > errorsBefore || bookingDate === undefined || amount === undefined) continue;
     let text = '';
     for (const c of description) {
-      const part = cellAt(table, r, c).trim();
-      if (part !== '') text = text === '' ? part : `${text} ${part}`;
+      const part = optional(r, c);
+      if (part !== undefined) text = text === '' ? part : `${text} ${part}`;
     }
     const entry: {
       -readonly [K in keyof StatementEntry]: StatementEntry[K];
     } = { bookingDate, amount, description: text, status: pending ? 'pending' : 'booked', source: { line } };
     if (valueDate !== undefined) entry.valueDate = valueDate;
-    const counterparty = optionalText(table, r, columns.counterparty);
+    const counterparty = optional(r, columns.counterparty);
     if (counterparty !== undefined) entry.counterparty = counterparty;
-    const reference = optionalText(table, r, columns.reference);
+    const reference = optional(r, columns.reference);
     if (reference !== undefined) entry.reference = reference;
-    const bankRef = optionalText(table, r, columns.bankRef);
+    const bankRef = optional(r, columns.bankRef);
     if (bankRef !== undefined) entry.bankRef = bankRef;
-    const typeCode = optionalText(table, r, columns.type);
+    const typeCode = optional(r, columns.type);
     if (typeCode !== undefined) entry.typeCode = typeCode;
     data.entries.push(entry);
     data.dates.push(bookingDate);
@@ -763,8 +805,14 @@ function statementStep(reading: Reading, data: RowData): void {
   const n = data.entries.length;
   const { order, breakIndex } = detectRowOrder(data.dates);
   reading.order = order;
-  const forward = Array.from({ length: n }, (_, k) => k);
-  let sequence = order === 'newestFirst' ? forward.slice().reverse() : forward;
+  const forward: number[] = new Array<number>(n);
+  for (let k = 0; k < n; k++) forward[k] = k;
+  const backward = (): number[] => {
+    const b = new Array<number>(n);
+    for (let k = 0; k < n; k++) b[k] = n - 1 - k;
+    return b;
+  };
+  let sequence = order === 'newestFirst' ? backward() : forward;
   let endOfDay: { day: CalendarDate; amount: number; line: number }[] = [];
   const exponent = minorUnitExponent(reading.currency ?? '') ?? 2;
   const hasBalances = columns.balance !== undefined && data.balances.some((b) => !Number.isNaN(b));
@@ -778,22 +826,26 @@ function statementStep(reading: Reading, data: RowData): void {
     } else {
       let check = checkRunningBalance(data, sequence);
       if (order === 'unknown' && check.mismatches.length > 0) {
-        const backward = forward.slice().reverse();
-        const other = checkRunningBalance(data, backward);
+        const reversed = backward();
+        const other = checkRunningBalance(data, reversed);
         if (other.mismatches.length < check.mismatches.length) {
           check = other;
-          sequence = backward;
+          sequence = reversed;
         }
       }
       for (const m of check.mismatches) problems.error(m.line, mismatchMessage(m, exponent, reading.decimal ?? '.'));
       endOfDay = check.endOfDay;
     }
   }
-  if (order === 'unsorted')
-    sequence = forward
-      .slice()
-      .sort((a, b) => (data.dates[a] as string).localeCompare(data.dates[b] as string) || a - b);
-  const entries = sequence.map((k) => data.entries[k] as StatementEntry);
+  if (order === 'unsorted') {
+    const dates = data.dates;
+    sequence = forward.slice().sort((a, b) => {
+      const x = dates[a] as string;
+      const y = dates[b] as string;
+      return x < y ? -1 : x > y ? 1 : a - b;
+    });
+  }
+  const entries = sequence === forward ? data.entries : sequence.map((k) => data.entries[k] as StatementEntry);
   const balances: StatementBalance[] = endOfDay.map((b) => ({
     kind: 'running',
     date: b.day,

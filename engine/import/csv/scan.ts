@@ -7,18 +7,30 @@
  *
  * Leniencies real exports need: a quote inside an unquoted field is an ordinary character;
  * text after a closing quote is appended to the field; blanks before an opening quote are
- * skipped. The output is flat (one array of all fields plus row offsets) so a 100,000-row
- * file makes no per-row objects.
+ * skipped.
+ *
+ * The table holds no strings: each field is a span of the text (typed arrays of offsets),
+ * so hot loops read numbers and dates straight from the text and only the cells that are
+ * kept (descriptions, names) become strings. A 100,000-row file makes no per-field objects.
  */
 
-/** The records of a CSV text, flattened. Read cells with `cellAt` / `rowWidth`. */
+/** The records of a CSV text as spans. Read cells with `cellAt`, or spans with `cellSpan`. */
 export interface CsvTable {
-  /** Every field of every record, record after record. */
-  readonly fields: readonly string[];
-  /** `rowStart[r]` is the index in `fields` of record r's first field; one extra entry closes the last record. */
-  readonly rowStart: readonly number[];
+  readonly text: string;
+  /** Start offset of field f's value in `text` (after an opening quote). */
+  readonly fieldStart: Int32Array;
+  /** End offset (exclusive) of field f's value (before a closing quote). */
+  readonly fieldEnd: Int32Array;
+  /**
+   * 1 when the value is not the plain span: a quoted field with doubled quotes, text after
+   * the closing quote, or no closing quote. Its span then runs from the opening quote to the
+   * field's end and `cellAt` unescapes it.
+   */
+  readonly fieldEscaped: Uint8Array;
+  /** `rowStart[r]` is the index of record r's first field; one extra entry closes the last record. */
+  readonly rowStart: Int32Array;
   /** 1-based line on which record r starts. */
-  readonly rowLine: readonly number[];
+  readonly rowLine: Int32Array;
   readonly rowCount: number;
   /** Line where a quoted field opened that never closed (it then runs to the end of the text). */
   readonly unclosedQuoteLine?: number;
@@ -32,31 +44,66 @@ const CR = 0x0d;
 const SPACE = 0x20;
 const TAB = 0x09;
 
+/** A growable Int32Array. */
+interface IntBuffer {
+  data: Int32Array;
+  length: number;
+}
+
+function push(buffer: IntBuffer, value: number): void {
+  if (buffer.length === buffer.data.length) {
+    const bigger = new Int32Array(buffer.data.length * 2);
+    bigger.set(buffer.data);
+    buffer.data = bigger;
+  }
+  buffer.data[buffer.length++] = value;
+}
+
 /**
  * Splits `text` into records and fields. O(n) in the text length, one pass, no regular
- * expressions. A leading U+FEFF byte-order mark is skipped. Never throws.
+ * expressions; runs of ordinary characters are skipped with native `indexOf`. A leading
+ * U+FEFF byte-order mark is skipped. Never throws.
  *
  * @param delimiter one character: `,` `;` tab or `|`.
  * @param maxRecords stop after this many records (for sniffing a sample).
  * @example
  * const t = scanCsv('a;"b ""c"""\r\n1;2', ';');
  * cellAt(t, 0, 1) // 'b "c"'
- * t.rowLine // [1, 2]
+ * t.rowLine // Int32Array [1, 2]
  */
 export function scanCsv(text: string, delimiter: string, maxRecords = Number.POSITIVE_INFINITY): CsvTable {
   const d = delimiter.charCodeAt(0);
   const n = text.length;
-  const fields: string[] = [];
-  const rowStart: number[] = [];
-  const rowLine: number[] = [];
+  const guess = Math.min(1 << 22, Math.max(16, n >> 3));
+  const starts: IntBuffer = { data: new Int32Array(guess), length: 0 };
+  const ends: IntBuffer = { data: new Int32Array(guess), length: 0 };
+  const escaped: IntBuffer = { data: new Int32Array(guess), length: 0 };
+  const rowStart: IntBuffer = { data: new Int32Array(Math.max(16, guess >> 2)), length: 0 };
+  const rowLine: IntBuffer = { data: new Int32Array(Math.max(16, guess >> 2)), length: 0 };
   let unclosedQuoteLine: number | undefined;
   let i = n > 0 && text.charCodeAt(0) === 0xfeff ? 1 : 0;
   let line = 1;
   let rows = 0;
+  // Next position of each special character at or after `i` (n when none), refreshed lazily with
+  // the engine's native indexOf: the scan stays one pass without a JavaScript loop per character.
+  let nextDelimiter = -1;
+  let nextLf = -1;
+  let nextCr = -1;
+  let nextQuote = -1;
+  const find = (ch: string, from: number): number => {
+    const k = text.indexOf(ch, from);
+    return k < 0 ? n : k;
+  };
+  const fieldEnd = (from: number): number => {
+    if (nextDelimiter < from) nextDelimiter = find(delimiter, from);
+    if (nextLf < from) nextLf = find('\n', from);
+    if (nextCr < from) nextCr = find('\r', from);
+    return Math.min(nextDelimiter, nextLf, nextCr);
+  };
 
   while (i < n && rows < maxRecords) {
-    rowStart.push(fields.length);
-    rowLine.push(line);
+    push(rowStart, starts.length);
+    push(rowLine, line);
     rows++;
     for (;;) {
       let c = i < n ? text.charCodeAt(i) : -1;
@@ -71,49 +118,51 @@ export function scanCsv(text: string, delimiter: string, maxRecords = Number.POS
       }
       if (c === QUOTE) {
         const openLine = line;
+        const open = i;
         i++;
-        let value = '';
-        let segment = i;
+        let plain = true;
+        let valueEnd = i;
         for (;;) {
-          if (i >= n) {
-            value += text.slice(segment, n);
+          if (nextQuote < i) nextQuote = find('"', i);
+          const q = nextQuote;
+          if (nextLf < i) nextLf = find('\n', i);
+          if (nextCr < i) nextCr = find('\r', i);
+          if (nextLf < q || nextCr < q) line += countLineBreaks(text, i, q);
+          if (q >= n) {
             unclosedQuoteLine ??= openLine;
+            plain = false;
+            i = n;
             break;
           }
-          const q = text.charCodeAt(i);
-          if (q === QUOTE) {
-            if (i + 1 < n && text.charCodeAt(i + 1) === QUOTE) {
-              value += text.slice(segment, i + 1);
-              i += 2;
-              segment = i;
-              continue;
-            }
-            value += text.slice(segment, i);
-            i++;
-            break;
+          if (q + 1 < n && text.charCodeAt(q + 1) === QUOTE) {
+            plain = false;
+            i = q + 2;
+            continue;
           }
-          if (q === LF) line++;
-          else if (q === CR && !(i + 1 < n && text.charCodeAt(i + 1) === LF)) line++;
-          i++;
+          valueEnd = q;
+          i = q + 1;
+          break;
         }
         if (i < n) {
-          const s = i;
-          while (i < n) {
-            const t = text.charCodeAt(i);
-            if (t === d || t === LF || t === CR) break;
-            i++;
-          }
-          if (i > s) value += text.slice(s, i);
+          const end = fieldEnd(i);
+          if (end > i) plain = false;
+          i = end;
         }
-        fields.push(value);
+        if (plain) {
+          push(starts, open + 1);
+          push(ends, valueEnd);
+          push(escaped, 0);
+        } else {
+          push(starts, open);
+          push(ends, i);
+          push(escaped, 1);
+        }
       } else {
-        const s = i;
-        while (i < n) {
-          const t = text.charCodeAt(i);
-          if (t === d || t === LF || t === CR) break;
-          i++;
-        }
-        fields.push(text.slice(s, i));
+        const end = i < n ? fieldEnd(i) : n;
+        push(starts, i);
+        push(ends, end);
+        push(escaped, 0);
+        i = end;
       }
       if (i >= n) break;
       const e = text.charCodeAt(i);
@@ -128,9 +177,50 @@ export function scanCsv(text: string, delimiter: string, maxRecords = Number.POS
       break;
     }
   }
-  rowStart.push(fields.length);
-  const table: CsvTable = { fields, rowStart, rowLine, rowCount: rows, truncated: i < n };
+  push(rowStart, starts.length);
+  const table: CsvTable = {
+    text,
+    fieldStart: starts.data.subarray(0, starts.length),
+    fieldEnd: ends.data.subarray(0, ends.length),
+    fieldEscaped: Uint8Array.from(escaped.data.subarray(0, escaped.length)),
+    rowStart: rowStart.data.subarray(0, rowStart.length),
+    rowLine: rowLine.data.subarray(0, rowLine.length),
+    rowCount: rows,
+    truncated: i < n,
+  };
   return unclosedQuoteLine === undefined ? table : { ...table, unclosedQuoteLine };
+}
+
+/** Line breaks (CRLF, LF or a lone CR) in text[from, to). */
+function countLineBreaks(text: string, from: number, to: number): number {
+  let count = 0;
+  const end = Math.min(to, text.length);
+  for (let k = from; k < end; k++) {
+    const c = text.charCodeAt(k);
+    if (c === LF) count++;
+    else if (c === CR && !(k + 1 < text.length && text.charCodeAt(k + 1) === LF)) count++;
+  }
+  return count;
+}
+
+/** The value of an escaped field: its quoted part with doubled quotes undone, then any text after it. */
+function unescapeField(text: string, open: number, end: number): string {
+  let value = '';
+  let i = open + 1;
+  let segment = i;
+  while (i < end) {
+    if (text.charCodeAt(i) === QUOTE) {
+      if (i + 1 < end && text.charCodeAt(i + 1) === QUOTE) {
+        value += text.slice(segment, i + 1);
+        i += 2;
+        segment = i;
+        continue;
+      }
+      return value + text.slice(segment, i) + text.slice(i + 1, end);
+    }
+    i++;
+  }
+  return value + text.slice(segment, end);
 }
 
 /** Number of fields of record `row`. */
@@ -138,23 +228,84 @@ export function rowWidth(table: CsvTable, row: number): number {
   return (table.rowStart[row + 1] as number) - (table.rowStart[row] as number);
 }
 
+/** Index of field `col` of record `row` in the span arrays, or -1 when the record is shorter. */
+export function fieldIndex(table: CsvTable, row: number, col: number): number {
+  return col < rowWidth(table, row) ? (table.rowStart[row] as number) + col : -1;
+}
+
 /** Field `col` of record `row`, or '' when the record is shorter. */
 export function cellAt(table: CsvTable, row: number, col: number): string {
-  if (col >= rowWidth(table, row)) return '';
-  return table.fields[(table.rowStart[row] as number) + col] as string;
+  const f = fieldIndex(table, row, col);
+  if (f < 0) return '';
+  const start = table.fieldStart[f] as number;
+  const end = table.fieldEnd[f] as number;
+  return table.fieldEscaped[f] === 1 ? unescapeField(table.text, start, end) : table.text.slice(start, end);
 }
 
 /** The fields of record `row` as a new array (for headers and previews, not hot loops). */
 export function rowCells(table: CsvTable, row: number): string[] {
-  return table.fields.slice(table.rowStart[row] as number, table.rowStart[row + 1] as number) as string[];
+  const cells: string[] = [];
+  for (let c = 0; c < rowWidth(table, row); c++) cells.push(cellAt(table, row, c));
+  return cells;
+}
+
+function isBlankChar(c: number): boolean {
+  return c === SPACE || c === TAB || c === 0xa0 || c === 0x202f || c === 0x2009 || c === 0xfeff;
+}
+
+/**
+ * A cell's span without surrounding blanks, written to `span` (reused, no allocation):
+ * `start`/`end` into `table.text`, or `text` set for an escaped field.
+ */
+export interface CellSpan {
+  text: string;
+  start: number;
+  end: number;
+}
+
+/**
+ * Points `span` at field `col` of record `row`, trimmed of blanks (space, tab, no-break
+ * spaces). An escaped field is unescaped into `span.text`; others leave `span.text` as the
+ * table text. A missing field is the empty span.
+ *
+ * @example const s = { text: '', start: 0, end: 0 }; cellSpan(scanCsv('a; 12 ', ';'), 0, 1, s); s.text.slice(s.start, s.end) // '12'
+ */
+export function cellSpan(table: CsvTable, row: number, col: number, span: CellSpan): CellSpan {
+  const f = fieldIndex(table, row, col);
+  let text = table.text;
+  let start = 0;
+  let end = 0;
+  if (f >= 0) {
+    if (table.fieldEscaped[f] === 1) {
+      text = unescapeField(table.text, table.fieldStart[f] as number, table.fieldEnd[f] as number);
+      end = text.length;
+    } else {
+      start = table.fieldStart[f] as number;
+      end = table.fieldEnd[f] as number;
+    }
+  }
+  while (start < end && isBlankChar(text.charCodeAt(start))) start++;
+  while (end > start && isBlankChar(text.charCodeAt(end - 1))) end--;
+  span.text = text;
+  span.start = start;
+  span.end = end;
+  return span;
 }
 
 /** True when every field of the record is empty or blank (an empty line, or `;;;`). */
 export function isBlankRow(table: CsvTable, row: number): boolean {
   const end = table.rowStart[row + 1] as number;
-  for (let k = table.rowStart[row] as number; k < end; k++) {
-    const f = table.fields[k] as string;
-    if (f.length > 0 && f.trim() !== '') return false;
+  const text = table.text;
+  for (let f = table.rowStart[row] as number; f < end; f++) {
+    if (table.fieldEscaped[f] === 1) {
+      if (cellAt(table, row, f - (table.rowStart[row] as number)).trim() !== '') return false;
+      continue;
+    }
+    const stop = table.fieldEnd[f] as number;
+    for (let k = table.fieldStart[f] as number; k < stop; k++) {
+      const c = text.charCodeAt(k);
+      if (!isBlankChar(c) && c !== LF && c !== CR) return false;
+    }
   }
   return true;
 }
