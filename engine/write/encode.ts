@@ -22,6 +22,43 @@ const WINDOWS_1252: ReadonlyMap<number, number> = (() => {
 })();
 
 /**
+ * UTF-8 bytes of `text` (RFC 3629). A lone surrogate becomes U+FFFD, as the WHATWG
+ * `TextEncoder` does. Written out here so the engine needs no platform encoder. O(n).
+ *
+ * @example [...utf8Bytes('€')] // [0xe2, 0x82, 0xac]
+ */
+export function utf8Bytes(text: string): Uint8Array {
+  const out = new Uint8Array(text.length * 3);
+  let o = 0;
+  for (let i = 0; i < text.length; i++) {
+    let cp = text.charCodeAt(i);
+    if (cp >= 0xd800 && cp <= 0xdbff && i + 1 < text.length) {
+      const low = text.charCodeAt(i + 1);
+      if (low >= 0xdc00 && low <= 0xdfff) {
+        cp = 0x10000 + ((cp - 0xd800) << 10) + (low - 0xdc00);
+        i++;
+      }
+    }
+    if (cp >= 0xd800 && cp <= 0xdfff) cp = 0xfffd;
+    if (cp < 0x80) out[o++] = cp;
+    else if (cp < 0x800) {
+      out[o++] = 0xc0 | (cp >> 6);
+      out[o++] = 0x80 | (cp & 0x3f);
+    } else if (cp < 0x10000) {
+      out[o++] = 0xe0 | (cp >> 12);
+      out[o++] = 0x80 | ((cp >> 6) & 0x3f);
+      out[o++] = 0x80 | (cp & 0x3f);
+    } else {
+      out[o++] = 0xf0 | (cp >> 18);
+      out[o++] = 0x80 | ((cp >> 12) & 0x3f);
+      out[o++] = 0x80 | ((cp >> 6) & 0x3f);
+      out[o++] = 0x80 | (cp & 0x3f);
+    }
+  }
+  return out.slice(0, o);
+}
+
+/**
  * Encodes `text`.
  * - `utf-8`: no byte-order mark; `utf-8-bom`: EF BB BF first.
  * - `utf-16le` / `utf-16be`: with a byte-order mark (FF FE / FE FF), as Windows tools
@@ -36,9 +73,9 @@ const WINDOWS_1252: ReadonlyMap<number, number> = (() => {
 export function encodeText(text: string, encoding: TextEncodingName): Uint8Array {
   switch (encoding) {
     case 'utf-8':
-      return new TextEncoder().encode(text);
+      return utf8Bytes(text);
     case 'utf-8-bom': {
-      const body = new TextEncoder().encode(text);
+      const body = utf8Bytes(text);
       const out = new Uint8Array(body.length + 3);
       out.set([0xef, 0xbb, 0xbf]);
       out.set(body, 3);

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { encodeText } from '../../engine/write/encode';
+import { encodeText, utf8Bytes } from '../../engine/write/encode';
 import { decodeWindows1252 } from '../../engine/import/decode';
 
 describe('encodeText', () => {
@@ -35,5 +35,14 @@ describe('encodeText', () => {
     );
     // U+0080 is not in index-windows-1252 (byte 0x80 is €).
     expect(() => encodeText('\u0080', 'windows-1252')).toThrow(/U\+0080/);
+  });
+});
+
+describe('utf8Bytes', () => {
+  it('agrees with the platform TextEncoder, lone surrogates included', () => {
+    // Source: WHATWG Encoding Standard, UTF-8 encoder (lone surrogates are encoded as U+FFFD).
+    for (const text of ['', 'abc', 'é€', '\u{1f3fa}x', '\ud800', 'a\udc00b', '\u07ff\u0800\uffff']) {
+      expect([...utf8Bytes(text)]).toEqual([...new TextEncoder().encode(text)]);
+    }
   });
 });

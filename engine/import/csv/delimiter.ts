@@ -23,8 +23,9 @@ export interface DelimiterScore {
   readonly sampled: number;
 }
 
-/** Characters of text looked at, and records sampled, per candidate. */
+/** Characters of text looked at per candidate. */
 export const DELIMITER_SAMPLE_CHARS = 65_536;
+/** Records sampled per candidate. */
 export const DELIMITER_SAMPLE_RECORDS = 80;
 
 /** Tie order: a tab or `;` is rarely part of a value, `,` often is (decimal commas). */

@@ -5,6 +5,7 @@
  * (Fowler, Noll and Vo; IETF draft-eastlake-fnv, offset basis 0xcbf29ce484222325, prime
  * 0x100000001b3).
  */
+import { utf8Bytes } from '../../write/encode';
 
 const OFFSET = 0xcbf29ce484222325n;
 const PRIME = 0x100000001b3n;
@@ -20,7 +21,7 @@ const MASK = 0xffffffffffffffffn;
 export function csvLayoutFingerprint(headerCells: readonly string[]): string {
   const cells = headerCells.map((c) => c.normalize('NFKC').trim().replace(/\s+/g, ' ').toLowerCase());
   while (cells.length > 0 && cells[cells.length - 1] === '') cells.pop();
-  const bytes = new TextEncoder().encode(cells.join('\u001f'));
+  const bytes = utf8Bytes(cells.join('\u001f'));
   let hash = OFFSET;
   for (const b of bytes) {
     hash ^= BigInt(b);
