@@ -257,3 +257,15 @@ describe('detectCsvLayout', () => {
     expect([d.dateFormat, d.twoDigitYears]).toEqual(['DD.MM.YY', true]);
   });
 });
+
+describe('detectCsvLayout: sign styles', () => {
+  it.each([
+    ['Date,Text,Amount\n2025-01-01,a,-5.00\n', 'signed'],
+    ['Date,Text,Amount\n2025-01-01,a,(5.00)\n', 'parentheses'],
+    ['Date,Text,Amount\n2025-01-01,a,5.00-\n', 'trailingMinus'],
+    ['Date,Text,Debit,Credit\n2025-01-01,a,5.00,\n', 'debitCredit'],
+    ['Date,Text,Amount,DR/CR\n2025-01-01,a,5.00,DR\n', 'indicator'],
+  ])('%j → %s', (text, style) => {
+    expect(detectCsvLayout(text, { fileName: 's.csv', currency: 'USD' }).signStyle).toBe(style);
+  });
+});

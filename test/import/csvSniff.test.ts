@@ -1,5 +1,7 @@
+import { readFileSync, readdirSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { csvImporter } from '../../engine/import/csv';
+import { importStatement } from '../../engine/import/registry';
 
 const sniff = (text: string): number => csvImporter.sniff(text);
 
@@ -43,6 +45,16 @@ describe('csvImporter.sniff', () => {
   it('never throws on odd input', () => {
     for (const odd of ['"', '""""', '\r\r\r', ',,,,', '\u0000\u0001', '"a\nb', ';'.repeat(10_000)]) {
       expect(sniff(odd)).toBeGreaterThanOrEqual(0);
+    }
+  });
+});
+
+describe('the registry picks the CSV importer by content', () => {
+  it('routes every CSV fixture to csv', () => {
+    const dir = new URL('../fixtures/csv/', import.meta.url);
+    for (const name of readdirSync(dir)) {
+      const result = importStatement(new Uint8Array(readFileSync(new URL(name, dir))), { fileName: name });
+      expect(result.format, name).toBe('csv');
     }
   });
 });

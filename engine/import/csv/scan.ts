@@ -74,7 +74,9 @@ function push(buffer: IntBuffer, value: number): void {
 export function scanCsv(text: string, delimiter: string, maxRecords = Number.POSITIVE_INFINITY): CsvTable {
   const d = delimiter.charCodeAt(0);
   const n = text.length;
-  const guess = Math.min(1 << 22, Math.max(16, n >> 3));
+  // Initial capacity: about one field per 8 characters, less when only a few records are wanted.
+  const wanted = Number.isFinite(maxRecords) ? maxRecords * 32 : Number.POSITIVE_INFINITY;
+  const guess = Math.max(16, Math.min(1 << 22, n >> 3, wanted));
   const starts: IntBuffer = { data: new Int32Array(guess), length: 0 };
   const ends: IntBuffer = { data: new Int32Array(guess), length: 0 };
   const escaped: IntBuffer = { data: new Int32Array(guess), length: 0 };
