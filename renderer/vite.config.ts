@@ -1,13 +1,14 @@
 import { defineConfig } from 'vite';
 import { svelte } from '@sveltejs/vite-plugin-svelte';
 import { fileURLToPath } from 'node:url';
+import { demoStatements } from './demoStatements.ts';
 
 // The renderer is served from a privileged custom protocol in Electron and from
 // 127.0.0.1 in browser mode; relative asset paths work for both.
 export default defineConfig({
   root: fileURLToPath(new URL('.', import.meta.url)),
   base: './',
-  plugins: [svelte()],
+  plugins: [svelte(), demoStatements(fileURLToPath(new URL('../resources/demo/statements', import.meta.url)))],
   worker: { format: 'es' },
   resolve: { alias: { '@engine': fileURLToPath(new URL('../engine', import.meta.url)) } },
   build: {

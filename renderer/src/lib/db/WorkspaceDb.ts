@@ -13,6 +13,7 @@ import type {
   ScenarioRecord,
   SettingRecord,
   StatementRecord,
+  StatementResultRecord,
   TransactionRecord,
 } from './records';
 
@@ -27,6 +28,7 @@ export function declareVersions(db: Dexie, versions: readonly SchemaVersion[]): 
 export class WorkspaceDb extends Dexie {
   accounts!: EntityTable<AccountRecord, 'id'>;
   statements!: EntityTable<StatementRecord, 'id'>;
+  statementResults!: EntityTable<StatementResultRecord, 'id'>;
   transactions!: EntityTable<TransactionRecord, 'id'>;
   anchors!: EntityTable<AnchorRecord, 'id'>;
   recurring!: EntityTable<RecurringDecisionRecord, 'key'>;
@@ -60,4 +62,14 @@ export class RegistryDb extends Dexie {
 /** Database name of a workspace. */
 export function workspaceDbName(id: string): string {
   return `ebbline-workspace-${id}`;
+}
+
+/** Opens (creating when new) the database of workspace `id` at the latest schema. */
+export function openWorkspaceDb(id: string): WorkspaceDb {
+  return new WorkspaceDb(workspaceDbName(id));
+}
+
+/** Deletes the whole database of workspace `id` (every file, decision and setting in it). */
+export function deleteWorkspaceDb(id: string): Promise<void> {
+  return Dexie.delete(workspaceDbName(id));
 }

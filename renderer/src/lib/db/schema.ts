@@ -19,10 +19,11 @@ export interface SchemaVersion {
 export const WORKSPACE_SCHEMA: readonly SchemaVersion[] = [
   {
     version: 1,
-    note: 'First schema: accounts, statements, transactions, balance anchors, recurring decisions, CSV mappings, scenarios, settings.',
+    note: 'First schema: imported files (summary and parsed content), the derived ledger (accounts, transactions, balance anchors), recurring decisions, CSV mappings, scenarios, settings.',
     stores: {
-      accounts: 'id, currency',
-      statements: 'id, importedAt, contentHash',
+      accounts: 'id, currency, order',
+      statements: 'id, &fileName, seq, contentHash',
+      statementResults: 'id',
       transactions: 'id, accountId, bookingDate, [accountId+bookingDate], statementId, fingerprint',
       anchors: '++id, accountId, [accountId+date], statementId',
       recurring: 'key, state',

@@ -1,7 +1,8 @@
 /**
  * The window's side of the engine worker: promise-based calls with progress callbacks and
  * cancellation. Cancelling terminates the worker (a running forecast cannot be interrupted
- * any other way without slowing its hot loops) and the next call starts a new one.
+ * any other way without slowing its hot loops); calls of other screens that were waiting
+ * in it are sent again to a fresh worker, so one screen's Cancel never fails another's call.
  */
 import type { MethodName, ParamsOf, ResultOf, WorkerError, WorkerReply } from './protocol';
 
@@ -25,6 +26,10 @@ interface Pending {
   resolve(value: unknown): void;
   reject(error: Error): void;
   onProgress?: (share: number, label: string) => void;
+  /** The request, kept to send it again after another call's cancellation. */
+  request: { id: number; method: MethodName; params: unknown };
+  /** Removes the abort listener once the call is settled. */
+  cleanup(): void;
 }
 
 export interface CallOptions {
@@ -60,15 +65,33 @@ export class EngineClient {
       return;
     }
     this.#pending.delete(reply.id);
+    pending.cleanup();
     if (reply.type === 'result') pending.resolve(reply.value);
     else pending.reject(new EngineCallError(reply.error));
   }
 
   #failAll(error: Error): void {
-    for (const p of this.#pending.values()) p.reject(error);
+    for (const p of this.#pending.values()) {
+      p.cleanup();
+      p.reject(error);
+    }
     this.#pending.clear();
     this.#worker?.terminate();
     this.#worker = null;
+  }
+
+  /** Cancels call `id`: stops the worker and sends the other waiting calls to a new one. */
+  #cancel(id: number): void {
+    const pending = this.#pending.get(id);
+    if (!pending) return;
+    this.#pending.delete(id);
+    pending.cleanup();
+    pending.reject(new CancelledError());
+    this.#worker?.terminate();
+    this.#worker = null;
+    if (this.#pending.size === 0) return;
+    const worker = this.#ensureWorker();
+    for (const p of this.#pending.values()) worker.postMessage(p.request);
   }
 
   /** Calls an engine method in the worker. Rejects with CancelledError when the signal aborts. */
@@ -78,9 +101,17 @@ export class EngineClient {
     const worker = this.#ensureWorker();
     const id = this.#nextId++;
     return new Promise<ResultOf<M>>((resolve, reject) => {
-      this.#pending.set(id, { resolve: resolve as (v: unknown) => void, reject, onProgress });
-      signal?.addEventListener('abort', () => this.#failAll(new CancelledError()), { once: true });
-      worker.postMessage({ id, method, params });
+      const onAbort = () => this.#cancel(id);
+      const request = { id, method, params };
+      this.#pending.set(id, {
+        resolve: resolve as (v: unknown) => void,
+        reject,
+        onProgress,
+        request,
+        cleanup: () => signal?.removeEventListener('abort', onAbort),
+      });
+      signal?.addEventListener('abort', onAbort, { once: true });
+      worker.postMessage(request);
     });
   }
 }

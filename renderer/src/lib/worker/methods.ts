@@ -2,10 +2,23 @@
  * The engine methods the worker offers. Each one takes plain data and a context for
  * progress, and returns plain data. They run inside the worker, never on the window's
  * thread.
+ *
+ * Methods that need the ledger take the stored files (`LedgerInputFile[]`, in import order)
+ * and rebuild it with `buildLedger`, exactly as the CLI does for the same files.
+ *
+ * Imports are relative, not `@engine/…`, so Vitest (which has no aliases) can load this file.
  */
-import { importStatement } from '@engine/import/registry';
-import type { ImportOptions } from '@engine/import/types';
+import { importStatement, type UnreadableFile } from '../../../../engine/import/registry';
+import { detectCsvLayout, type CsvLayoutDetection } from '../../../../engine/import/csv';
+import { declaredEncoding, decodeStatementBytes } from '../../../../engine/import/decode';
+import type { ImportOptions, ImportResult } from '../../../../engine/import/types';
+import { buildLedger, type LedgerInputFile } from '../../../../engine/ledger/buildLedger';
+import type { SeriesScope } from '../../../../engine/ledger/dailySeries';
+import type { Ledger } from '../../../../engine/ledger/types';
+import { historyFromLedger, type ForecastHistory } from '../../../../engine/forecast/history';
+import { detectRecurringFlows, type DetectedRecurringFlow } from '../../../../engine/recurring/detectRecurringFlows';
 import type { MethodContext } from './protocol';
+import { contentHash } from './contentHash';
 
 export interface ImportFileInput {
   readonly name: string;
@@ -13,17 +26,102 @@ export interface ImportFileInput {
   readonly options?: Omit<ImportOptions, 'fileName'>;
 }
 
+/** One file as read: the importer's result, plus the CSV layout evidence for a mapping preview. */
+export interface ParsedFile {
+  readonly name: string;
+  readonly size: number;
+  /** SHA-256 of the bytes (hex). */
+  readonly contentHash: string;
+  readonly result: ImportResult | UnreadableFile;
+  /** For CSV files: what detection decided (columns, date format, separators, sign style). */
+  readonly csv?: CsvLayoutDetection;
+}
+
+/** Recurring flows of one currency scope and the history they were found in. */
+export interface RecurringFlowsResult {
+  readonly currency: string;
+  readonly start: string;
+  readonly asOf: string;
+  readonly flows: readonly DetectedRecurringFlow[];
+}
+
+function ledgerOf(files: readonly LedgerInputFile[], context: MethodContext): Ledger {
+  context.progress(0, 'Building the ledger');
+  return buildLedger(files);
+}
+
 export const engineMethods = {
+  ...analysisMethods,
   /** Parses statement files; the caller decides whether to store them (all or nothing). */
-  async parseStatements(params: { files: readonly ImportFileInput[] }, context: MethodContext) {
-    const results = [];
-    for (let i = 0; i < params.files.length; i++) {
-      const f = params.files[i]!;
-      context.progress(i / params.files.length, `Reading ${f.name}`);
-      results.push(importStatement(f.bytes, { ...f.options, fileName: f.name }));
+  async parseStatements(params: { files: readonly ImportFileInput[] }, context: MethodContext): Promise<ParsedFile[]> {
+    const results: ParsedFile[] = [];
+    const total = params.files.reduce((sum, f) => sum + f.bytes.length, 0) || 1;
+    let done = 0;
+    for (const f of params.files) {
+      context.progress(done / total, `Reading ${f.name}`);
+      const options: ImportOptions = { ...f.options, fileName: f.name };
+      const result = importStatement(f.bytes, options);
+      let csv: CsvLayoutDetection | undefined;
+      if (result.format === 'csv') {
+        const { text } = decodeStatementBytes(f.bytes, declaredEncoding(f.bytes));
+        csv = detectCsvLayout(text, options);
+      }
+      results.push({
+        name: f.name,
+        size: f.bytes.length,
+        contentHash: await contentHash(f.bytes),
+        result,
+        ...(csv ? { csv } : {}),
+      });
+      done += f.bytes.length;
     }
     context.progress(1, 'Read all files');
     return results;
+  },
+
+  /** The ledger of the given files, in the order given (the CLI's `buildLedger`). */
+  async buildLedger(params: { files: readonly LedgerInputFile[] }, context: MethodContext): Promise<Ledger> {
+    const ledger = ledgerOf(params.files, context);
+    context.progress(1, 'Ledger built');
+    return ledger;
+  },
+
+  /**
+   * The forecast history of a scope (engine/forecast/history.ts), built from the stored
+   * files through `buildLedger` + `historyFromLedger`, as the CLI does.
+   */
+  async forecastHistory(
+    params: { files: readonly LedgerInputFile[]; scope: SeriesScope; asOf?: string },
+    context: MethodContext,
+  ): Promise<ForecastHistory> {
+    const ledger = ledgerOf(params.files, context);
+    context.progress(0.6, 'Collecting the history');
+    const history = historyFromLedger(ledger, params.scope, params.asOf);
+    context.progress(1, 'History ready');
+    return history;
+  },
+
+  /** Recurring flows of a scope, detected exactly as the forecast detects them. */
+  async recurringFlows(
+    params: { files: readonly LedgerInputFile[]; scope: SeriesScope },
+    context: MethodContext,
+  ): Promise<RecurringFlowsResult> {
+    const ledger = ledgerOf(params.files, context);
+    context.progress(0.4, 'Collecting the history');
+    const history = historyFromLedger(ledger, params.scope);
+    context.progress(0.6, 'Finding recurring flows');
+    const flows = detectRecurringFlows(
+      history.entries.map((e) => ({
+        id: e.id,
+        date: e.date,
+        amount: e.amount,
+        description: e.description,
+        counterparty: e.counterparty,
+      })),
+      { asOf: history.asOf },
+    );
+    context.progress(1, 'Recurring flows found');
+    return { currency: history.currency, start: history.start, asOf: history.asOf, flows };
   },
 };
 
