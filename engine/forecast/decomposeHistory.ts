@@ -10,7 +10,7 @@ import { detectRecurringFlows, type DetectedRecurringFlow } from '../recurring/d
 import { seasonalStrength } from '../stats/seasonalStrength';
 import { seriesDiagnostics as runDiagnostics, type SeriesDiagnostics } from '../stats/diagnostics';
 import type { ForecastHistory } from './history';
-import type { RecurringDecision } from './recurringComponents';
+import { explainedEntryIds, type RecurringDecision } from './recurringComponents';
 import { residualSeries } from './runForecast';
 
 export interface DirectionPatterns {
@@ -95,10 +95,7 @@ export function decomposeHistory(
     })),
     { asOf: history.asOf },
   );
-  const dismissed = new Set(decisions.filter((d) => d.state === 'dismissed').map((d) => d.key));
-  const explained = new Set<string>();
-  for (const flow of recurring) if (!dismissed.has(flow.key)) for (const id of flow.memberIds) explained.add(id);
-  const residual = residualSeries(history, explained);
+  const residual = residualSeries(history, explainedEntryIds(recurring, decisions));
   return {
     start: history.start,
     asOf: history.asOf,

@@ -24,8 +24,9 @@ export interface ProjectedRecurring {
   readonly status: 'confirmed' | 'edited' | 'suggested';
   readonly label: string;
   readonly cadence: Cadence;
-  /** Typical signed amount per occurrence (minor units) after edits and plan scaling. */
+  /** Typical signed amount of the next occurrence (minor units) after edits and plan scaling. */
   readonly amount: number;
+  /** Next projected occurrence (it may lie beyond the horizon); null when a pause stops it. */
   readonly nextDate: CalendarDate | null;
 }
 
@@ -54,6 +55,46 @@ function scaled(a: AmountDistribution, factor: number): AmountDistribution {
   }
 }
 
+/** Why a detected flow is or is not projected. */
+export type RecurringSelection = 'projected' | 'dismissed' | 'ended' | 'unconfirmed';
+
+/**
+ * Whether a detected flow is projected: not dismissed by the user, not ended, and either
+ * confirmed/edited or suggested with confidence ≥ AUTO_CONFIDENCE.
+ * @example recurringSelection(flow, undefined) // 'projected' for a confident, ongoing flow
+ */
+export function recurringSelection(
+  flow: DetectedRecurringFlow,
+  decision: RecurringDecision | undefined,
+): RecurringSelection {
+  if (decision?.state === 'dismissed') return 'dismissed';
+  if (flow.state === 'ended') return 'ended';
+  if (!decision && flow.confidence < AUTO_CONFIDENCE) return 'unconfirmed';
+  return 'projected';
+}
+
+/**
+ * Ids of the history entries that the recurring flows account for, which therefore leave
+ * the residual series: the members of projected flows (their future comes from their
+ * schedule, also when a plan pauses them) and of ended flows (so a flow that stopped does
+ * not echo on in the residual models). Members of dismissed flows and of unconfirmed
+ * low-confidence suggestions stay in the residual series: they are neither projected nor
+ * gone, and leaving them out of both would drop real money from the forecast.
+ * @example residualSeries(history, explainedEntryIds(detected, decisions))
+ */
+export function explainedEntryIds(
+  flows: readonly DetectedRecurringFlow[],
+  decisions: readonly RecurringDecision[],
+): Set<string> {
+  const byKey = new Map(decisions.map((d) => [d.key, d]));
+  const explained = new Set<string>();
+  for (const flow of flows) {
+    const selection = recurringSelection(flow, byKey.get(flow.key));
+    if (selection === 'projected' || selection === 'ended') for (const id of flow.memberIds) explained.add(id);
+  }
+  return explained;
+}
+
 /**
  * Builds the recurring components of a forecast.
  *
@@ -80,59 +121,72 @@ export function projectRecurring(
   for (const flow of flows) {
     const decision = byKey.get(flow.key);
     const label = decision?.edits?.label ?? flow.label;
-    if (decision?.state === 'dismissed') {
+    const selection = recurringSelection(flow, decision);
+    if (selection === 'dismissed') {
       skipped.push({ key: flow.key, label, reason: 'dismissed by you' });
       continue;
     }
-    if (flow.state === 'ended') {
+    if (selection === 'ended') {
       skipped.push({ key: flow.key, label, reason: `ended: last seen ${flow.lastDate}` });
       continue;
     }
-    if (!decision && flow.confidence < AUTO_CONFIDENCE) {
+    if (selection === 'unconfirmed') {
       skipped.push({
         key: flow.key,
         label,
-        reason: `confidence ${Math.round(flow.confidence * 100)}% is below ${AUTO_CONFIDENCE * 100}%; confirm it to include it`,
+        reason: `confidence ${Math.round(flow.confidence * 100)}% is below ${AUTO_CONFIDENCE * 100}%, so it stays with the other flows; confirm it to project it by its schedule`,
       });
       continue;
     }
     const cadence = decision?.edits?.cadence ?? flow.cadence;
-    let days = scheduleDays(cadence, first, last, flow.businessDayRule).map((d) => d - first);
-    let amount: AmountDistribution =
+    // Two years ahead at least, so a yearly flow beyond the horizon still has a next date.
+    const scheduled = scheduleDays(cadence, first, Math.max(last, first + 730), flow.businessDayRule).map(
+      (d) => d - first,
+    );
+    const amount: AmountDistribution =
       decision?.edits?.amount !== undefined
         ? { kind: 'fixed', value: decision.edits.amount }
         : flow.recentAmounts.length === 1 || new Set(flow.recentAmounts).size === 1
           ? { kind: 'fixed', value: flow.recentAmounts[0] ?? flow.typicalAmount }
           : { kind: 'empirical', values: flow.recentAmounts };
-    let typical = decision?.edits?.amount ?? flow.typicalAmount;
+    const typical = decision?.edits?.amount ?? flow.typicalAmount;
     const timing = { offsets: flow.timing.offsets, weights: flow.timing.weights };
     const base = { kind: 'recurring' as const, label, timing, probability: Math.max(0.5, flow.probability) };
-    let pieces: RecurringComponent[] = [];
-    for (const change of changes) {
-      if (!matches(change, flow, label)) continue;
-      used.add(change);
-      const from = change.from ? toDayNumber(change.from) - first : 0;
-      if (change.action === 'pause') {
-        days = days.filter((d) => d < from);
-      } else {
-        const after = days.filter((d) => d >= from);
-        days = days.filter((d) => d < from);
-        if (after.length)
-          pieces.push({ ...base, key: `${flow.key}#scaled`, days: after, amount: scaled(amount, change.factor) });
-        typical = Math.round(typical * change.factor);
-        if (from <= 0) amount = scaled(amount, change.factor);
-      }
+    // Each occurrence gets the product of the factors of the scalings in force on its day
+    // and is dropped once a pause is in force; occurrences that share a factor form one
+    // component. The unchanged ones keep the flow's own key (and so its random draws).
+    const mine = changes.filter((c) => matches(c, flow, label));
+    for (const c of mine) used.add(c);
+    const fromDay = (c: RecurringChange) => (c.from ? toDayNumber(c.from) - first : Number.NEGATIVE_INFINITY);
+    const paused = (d: number) => mine.some((c) => c.action === 'pause' && d >= fromDay(c));
+    const factorOn = (d: number) => {
+      let factor = 1;
+      for (const c of mine) if (c.action === 'scale' && d >= fromDay(c)) factor *= c.factor;
+      return factor;
+    };
+    const byFactor = new Map<number, number[]>();
+    for (const d of scheduled) {
+      if (d >= horizon || paused(d)) continue;
+      const factor = factorOn(d);
+      const list = byFactor.get(factor);
+      if (list) list.push(d);
+      else byFactor.set(factor, [d]);
     }
-    pieces = [{ ...base, key: flow.key, days, amount }, ...pieces].filter((p) => p.days.length > 0);
+    const pieces: RecurringComponent[] = [...byFactor].map(([factor, pieceDays]) => ({
+      ...base,
+      key: factor === 1 ? flow.key : `${flow.key}#scaled×${factor}`,
+      days: pieceDays,
+      amount: factor === 1 ? amount : scaled(amount, factor),
+    }));
     components.push(...pieces);
-    const next = pieces.flatMap((p) => p.days).sort((a, b) => a - b)[0];
+    const next = scheduled.find((d) => !paused(d));
     projected.push({
       flow,
       status: decision ? (decision.state === 'edited' ? 'edited' : 'confirmed') : 'suggested',
       label,
       cadence,
-      amount: typical,
-      nextDate: next === undefined ? flow.nextDate : fromDayNumber(first + next),
+      amount: Math.round(typical * (next === undefined ? 1 : factorOn(next))),
+      nextDate: next === undefined ? null : fromDayNumber(first + next),
     });
   }
   return { components, projected, skipped, unmatchedChanges: changes.filter((c) => !used.has(c)) };

@@ -18,7 +18,7 @@
  *   adjusted series, the projected seasonality added back;
  * - for intermittent series (average inter-demand interval above 1.32 days, Syntetos,
  *   Boylan and Croston 2005), Croston's method with the Syntetos–Boylan approximation.
- * The winner (lowest mean MASE) is refitted on the whole window and simulated with
+ * The winner (lowest mean pinball loss) is refitted on the whole window and simulated with
  * stationary-bootstrap residuals (Politis and Romano 1994, mean block 7 days), which keeps
  * the day-to-day dependence and the skew of real flows. Intermittent winners are simulated
  * as daily occurrences with weekday-specific probabilities and sizes resampled from the last
@@ -259,7 +259,7 @@ export function modelResidualFlow(
         components: { weekly: true, monthly: false, yearly: false },
         notes: [
           ...notes,
-          `${direction === 'inflow' ? 'Inflows' : 'Outflows'} happen on ${Math.round(100 * fit.probability)}% of days; each weekday keeps its own chance and sizes are drawn from the last year.`,
+          `${direction === 'inflow' ? 'Receipts arrive' : 'Payments go out'} on ${Math.round(100 * fit.probability)}% of days; each weekday keeps its own chance and sizes are drawn from the last year.`,
         ],
       },
     };

@@ -21,7 +21,12 @@ import { summariseBalances } from '../simulate/summariseBalances';
 import { QUANTILE_LEVELS, type BalanceSummary, type FlowComponent } from '../simulate/types';
 import type { ForecastHistory } from './history';
 import { plannedComponents } from './plannedComponents';
-import { projectRecurring, type ProjectedRecurring, type RecurringDecision } from './recurringComponents';
+import {
+  explainedEntryIds,
+  projectRecurring,
+  type ProjectedRecurring,
+  type RecurringDecision,
+} from './recurringComponents';
 import { modelResidualFlow, type DirectionReport } from './residualFlows';
 
 export interface ForecastConfig {
@@ -77,6 +82,10 @@ export interface ForecastResult {
   readonly detected: readonly DetectedRecurringFlow[];
   readonly model: { readonly inflow: DirectionReport; readonly outflow: DirectionReport };
   readonly planItems: number;
+  /**
+   * Every note in reading order: those about the whole forecast (balances, the plan), then
+   * the model notes of each direction, prefixed "Inflows: " and "Outflows: ".
+   */
   readonly notes: readonly string[];
   readonly caution: string;
 }
@@ -170,12 +179,7 @@ export function runForecast(
       `The plan's change "${change.action} ${change.match}" matches no recurring flow that is projected; it was not applied.`,
     );
   }
-  // Entries of detected flows leave the residual history unless the user dismissed the
-  // flow, so a flow that ended does not echo on in the residual models.
-  const dismissed = new Set((config.decisions ?? []).filter((d) => d.state === 'dismissed').map((d) => d.key));
-  const explained = new Set<string>();
-  for (const flow of detected) if (!dismissed.has(flow.key)) for (const id of flow.memberIds) explained.add(id);
-  const residual = residualSeries(history, explained);
+  const residual = residualSeries(history, explainedEntryIds(detected, config.decisions ?? []));
   const forecastStart = addDays(history.asOf, 1);
   onProgress?.(0.1, 'Modelling other inflows');
   const inflow = modelResidualFlow(residual.inflow, history.start, 'inflow', forecastStart, horizon);

@@ -138,7 +138,10 @@ export function validatePlan(doc: unknown, currency: string): PlanValidation {
           (d.max as number) < (d.min as number) ||
           (d.max as number) > 365
         ) {
-          problem(`${p}.delayDays`, 'expected { "min": whole days ≥ 0, "max": whole days ≥ min, at most 365 }');
+          problem(
+            `${p}.delayDays`,
+            `found ${JSON.stringify(d)}, expected { "min": whole days ≥ 0, "max": whole days ≥ min, at most 365 }`,
+          );
         } else delay = { min: d.min as number, max: d.max as number };
       }
       const every = raw.every === undefined ? null : (raw.every as PlanEvery);
