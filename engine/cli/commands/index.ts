@@ -4,7 +4,9 @@
  * it here; runCli finds it by name, parses its options and maps its errors to exit codes.
  */
 import type { CliCommand } from '../types';
+import { decomposeCommand } from './decompose';
+import { forecastCommand } from './forecast';
 import { importCommand } from './import';
 
 /** Every registered command. */
-export const COMMANDS: readonly CliCommand[] = [importCommand];
+export const COMMANDS: readonly CliCommand[] = [importCommand, forecastCommand, decomposeCommand];
