@@ -28,16 +28,20 @@ export const BACKUP_SCHEMA = 'ebbline.backup/1';
 export const CHECKSUM_ALGORITHM = 'SHA-256';
 
 /**
- * The tables of a workspace (the renderer's stores): accounts, statements (each stored
- * file's ImportResult), transactions, balance anchors, recurring-flow decisions, CSV
- * mappings, scenarios (plan documents) and settings.
+ * The tables of a workspace, named as the renderer's Dexie stores are
+ * (renderer/src/lib/db/schema.ts, version 1): accounts, statements (one per stored file),
+ * statementResults (each stored file's ImportResult), transactions, balance anchors,
+ * recurring (the user's decisions about recurring flows), CSV mappings, scenarios (plan
+ * documents) and settings. A later database version with other stores passes its own
+ * list as `tables`.
  */
 export const BACKUP_TABLES = [
   'accounts',
   'statements',
+  'statementResults',
   'transactions',
   'anchors',
-  'recurringDecisions',
+  'recurring',
   'csvMappings',
   'scenarios',
   'settings',

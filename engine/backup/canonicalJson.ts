@@ -7,10 +7,12 @@
  *
  * Only data that survives a JSON round trip unchanged is accepted: null, booleans,
  * strings, finite numbers within ±(2^53 − 1) (larger ones cannot be kept exactly, and
- * money must stay exact), arrays without holes and plain objects. Anything else (undefined,
- * functions, bigint, Date, Map, class instances, cycles) is refused with its path instead
- * of being silently dropped or changed, as JSON.stringify would. −0 is written as 0 (JSON
- * has no negative zero).
+ * money must stay exact), arrays without holes and plain objects. Anything else (functions,
+ * bigint, Date, Map, class instances, cycles, undefined inside an array) is refused with
+ * its path instead of being silently changed, as JSON.stringify would. Two things JSON
+ * cannot say are normalised instead: an object property whose value is undefined is left
+ * out (IndexedDB keeps such properties; absent and undefined mean the same for an optional
+ * field), and −0 is written as 0.
  */
 import { EngineError } from '../core/errors';
 
@@ -70,7 +72,9 @@ function write(value: unknown, path: string, ancestors: Set<object>, out: string
     out.push(']');
   } else {
     const record = value as Record<string, unknown>;
-    const keys = Object.keys(record).sort();
+    const keys = Object.keys(record)
+      .filter((k) => record[k] !== undefined)
+      .sort();
     out.push('{');
     keys.forEach((k, i) => {
       if (i > 0) out.push(',');

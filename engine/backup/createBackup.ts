@@ -40,8 +40,8 @@ function checkMeta(meta: BackupMeta): void {
  * @throws EngineError INVALID_ARGUMENT for a missing or unknown table, a record that is not
  *   a plain object, a value that JSON cannot keep exactly (path named), or bad meta.
  * @example
- * const text = createBackup({ accounts: [], statements: [], transactions: [], anchors: [],
- *   recurringDecisions: [], csvMappings: [], scenarios: [], settings: [] },
+ * const text = createBackup({ accounts: [], statements: [], statementResults: [], transactions: [],
+ *   anchors: [], recurring: [], csvMappings: [], scenarios: [], settings: [] },
  *   { schemaVersion: 3, createdOn: '2026-11-02', workspace: 'Tessellate Ceramics' });
  * Complexity: O(size) to serialise and hash, plus sorting each record's keys.
  */
