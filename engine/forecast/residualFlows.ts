@@ -20,7 +20,8 @@
  *   Boylan and Croston 2005), Croston's method with the Syntetos–Boylan approximation.
  * The winner (lowest mean pinball loss) is refitted on the whole window and simulated with
  * stationary-bootstrap residuals (Politis and Romano 1994, mean block 7 days), which keeps
- * the day-to-day dependence and the skew of real flows. Intermittent winners are simulated
+ * the day-to-day dependence and the skew of real flows; residuals that pass the
+ * white-noise check are drawn day by day instead (see bootstrapBlock). Intermittent winners are simulated
  * as daily occurrences with weekday-specific probabilities and sizes resampled from the last
  * year, so a flow that happens on Saturdays keeps happening on Saturdays.
  */
@@ -44,6 +45,22 @@ export const MAX_TRAINING_DAYS = 3 * 365 + 1;
 export const MIN_BACKTEST_DAYS = 56 + 28 + 3 * 28;
 const BACKTEST_HORIZON = 28;
 const BOOTSTRAP_BLOCK = 7;
+
+/**
+ * Mean block length of the residual bootstrap: blocks of about a week keep the day-to-day
+ * dependence a model left in its residuals; when the residuals pass the white-noise check
+ * there is no dependence to keep, and single days are drawn, because blocks would then
+ * replay the chance autocorrelations of one history (and, after a decomposition, the
+ * slight negative autocorrelation that subtracting fitted seasonal components leaves), which
+ * made the 90% band of 60-day balances up to 12% narrower than the truth in the calibration
+ * tests (test/calibration; 12 histories: band width / true width 1.01 ± 0.10 with weekly
+ * blocks throughout, 1.02 ± 0.11 with this rule, but 0.88 → 0.96 on the history where a
+ * decomposition won, and pooled P5–P95 coverage 89.5% → 90.0%).
+ * @example bootstrapBlock(true) // 1
+ */
+export function bootstrapBlock(residualsLookRandom: boolean | null): number {
+  return residualsLookRandom === true ? 1 : BOOTSTRAP_BLOCK;
+}
 
 export const CANDIDATE_NAMES = {
   seasonalNaive: 'Seasonal naive (weekly)',
@@ -288,7 +305,7 @@ export function modelResidualFlow(
           season: Array.from(fit.lastPeriod),
           sigma: Math.sqrt(ss / Math.max(1, residuals.length)),
         },
-        errors: { kind: 'bootstrap', residuals, meanBlock: BOOTSTRAP_BLOCK },
+        errors: { kind: 'bootstrap', residuals, meanBlock: bootstrapBlock(check?.random ?? null) },
         offset: [],
       },
       report: {
@@ -314,7 +331,11 @@ export function modelResidualFlow(
         label,
         sign,
         model: etsToStateSpaceModel(fit),
-        errors: { kind: 'bootstrap', residuals: Array.from(fit.residuals), meanBlock: BOOTSTRAP_BLOCK },
+        errors: {
+          kind: 'bootstrap',
+          residuals: Array.from(fit.residuals),
+          meanBlock: bootstrapBlock(check?.random ?? null),
+        },
         offset: [],
       },
       report: {
@@ -343,7 +364,11 @@ export function modelResidualFlow(
       label,
       sign,
       model: etsToStateSpaceModel(ets),
-      errors: { kind: 'bootstrap', residuals: Array.from(ets.residuals), meanBlock: BOOTSTRAP_BLOCK },
+      errors: {
+        kind: 'bootstrap',
+        residuals: Array.from(ets.residuals),
+        meanBlock: bootstrapBlock(check?.random ?? null),
+      },
       offset: Array.from(projection.total),
     },
     report: {
