@@ -71,6 +71,15 @@ export function formatDate(date: CalendarDate): string {
 }
 
 /**
+ * A calendar date without its year, for tables whose dates are close together: "31 Jan".
+ * @throws EngineError INVALID_DATE for text that is not a YYYY-MM-DD date.
+ * @example formatShortDate('2027-01-31') // '31 Jan'
+ */
+export function formatShortDate(date: CalendarDate): string {
+  return formatDate(date).replace(/ \d+$/, '');
+}
+
+/**
  * A number of weeks with one decimal ("6.1 weeks", "1 week").
  * @example formatWeeks(43 / 7) // '6.1 weeks'
  */

@@ -5,12 +5,33 @@
  */
 import { formatAmount, formatCount, formatDate, formatPercent, formatWeeks } from '../report/plainFormat';
 import type { RunwayEstimate } from './runway';
-import type { RunwayQuantile } from './runwayFromCrossedShares';
+import type { CrossingRunway, RunwayQuantile } from './runwayFromCrossedShares';
 
 function quantileText(q: RunwayQuantile): string {
   return q.beyondHorizon || q.weeks === null || q.date === null
-    ? 'beyond the horizon'
-    : `${formatWeeks(q.weeks)} (${formatDate(q.date)})`;
+    ? 'not within the horizon'
+    : `within ${formatWeeks(q.weeks)} (by ${formatDate(q.date)})`;
+}
+
+/**
+ * The simulated first-crossing range in one sentence (for a forecast without history at
+ * hand, e.g. a report made from a result alone).
+ * @example describeSimulatedRunway(runwayFromResult(result), 'EUR')
+ */
+export function describeSimulatedRunway(s: CrossingRunway, currency: string): string {
+  const line = formatAmount(s.threshold, currency);
+  const horizon = formatWeeks(s.horizonWeeks);
+  if (s.shareCrossing === 0) {
+    return `In none of the ${formatCount(s.paths)} simulated paths does the balance fall below ${line} within the ${horizon} of the forecast, so the simulated runway is beyond the horizon; that is an estimate, not a guarantee.`;
+  }
+  if (s.p10.beyondHorizon) {
+    return `Only ${formatPercent(s.shareCrossing)} of the ${formatCount(s.paths)} simulated paths fall below ${line} within the ${horizon} of the forecast, so even the runway of the worst 10% of paths is beyond the horizon.`;
+  }
+  return (
+    `Estimated time until the balance first falls below ${line}: in 10% of the simulated paths ${quantileText(s.p10)}, ` +
+    `in half of them ${quantileText(s.p50)}, in 90% ${quantileText(s.p90)}; ` +
+    `${formatPercent(s.shareCrossing)} of the paths fall below it within the ${horizon} of the forecast.`
+  );
 }
 
 /**
@@ -21,19 +42,7 @@ function quantileText(q: RunwayQuantile): string {
 export function describeRunway(estimate: RunwayEstimate): string[] {
   const { simulated: s, burn, naive, currency } = estimate;
   const line = formatAmount(s.threshold, currency);
-  const horizon = formatWeeks(s.horizonWeeks);
-  const sentences: string[] = [];
-  if (s.shareCrossing === 0) {
-    sentences.push(
-      `In none of the ${formatCount(s.paths)} simulated paths does the balance fall below ${line} within the ${horizon} of the forecast, so the simulated runway is beyond the horizon; that is an estimate, not a guarantee.`,
-    );
-  } else {
-    sentences.push(
-      `Estimated time until the balance first falls below ${line}: in 10% of the simulated paths ${quantileText(s.p10)}, ` +
-        `in half of them ${quantileText(s.p50)}, in 90% ${quantileText(s.p90)}; ` +
-        `${formatPercent(s.shareCrossing)} of the paths fall below it within the ${horizon} of the forecast.`,
-    );
-  }
+  const sentences: string[] = [describeSimulatedRunway(s, currency)];
   const period = `${formatDate(burn.from)} to ${formatDate(burn.to)}`;
   const weeks = `${burn.weeks} ${burn.weeks === 1 ? 'week' : 'weeks'}`;
   if (burn.burnPerWeek > 0) {
