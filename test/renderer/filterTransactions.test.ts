@@ -7,10 +7,11 @@ function tx(
   bookingDate: string,
   amount: number,
   description: string,
-  extra: Partial<TransactionRecord> = {},
+  extra: Partial<Pick<TransactionRecord, 'accountId' | 'currency' | 'counterparty' | 'reference'>> = {},
 ): TransactionRecord {
   return {
     id,
+    seq: Number(id),
     accountId: 'A',
     bookingDate,
     amount,
@@ -30,9 +31,11 @@ const records: readonly TransactionRecord[] = Object.freeze([
 ]);
 
 describe('prepareRows', () => {
-  it('sorts by date without touching its input and prepares lower-cased search text', () => {
+  it('sorts by date, then ledger order, without touching its input, and prepares lower-cased search text', () => {
     const rows = prepareRows(records);
     expect(rows.map((r) => r.id)).toEqual(['1', '2', '3', '4']);
+    const sameDay = prepareRows([tx('9', '2026-01-01', 1, 'b'), tx('8', '2026-01-01', 1, 'a')]);
+    expect(sameDay.map((r) => r.id)).toEqual(['8', '9']);
     expect(records.map((r) => r.id)).toEqual(['3', '1', '2', '4']);
     expect(rows[2]!.searchText).toBe('studio rent january\nmarram lettings\nrent-01');
   });

@@ -40,6 +40,7 @@ export function ledgerRows(ledger: Ledger, fileIds: ReadonlyMap<string, string>)
     entries.set(t.accountId, (entries.get(t.accountId) ?? 0) + 1);
     const row: TransactionRecord = {
       id: t.id,
+      seq: i,
       accountId: t.accountId,
       bookingDate: t.bookingDate,
       amount: t.amount,

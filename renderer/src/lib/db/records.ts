@@ -93,6 +93,8 @@ export interface StatementResultRecord {
 export interface TransactionRecord {
   /** The ledger's id `accountId|fingerprint|occurrence`. */
   id: string;
+  /** Position in the ledger (account, booking date, then file and entry order). */
+  seq: number;
   accountId: string;
   bookingDate: string;
   valueDate?: string;
@@ -133,6 +135,8 @@ export interface CsvMappingRecord {
   mapping: CsvMapping;
   /** Currency chosen for a layout that states none. */
   currency?: string;
+  /** Account chosen for a layout that names none. */
+  account?: string;
   savedAt: string;
 }
 

@@ -24,7 +24,8 @@ export const WORKSPACE_SCHEMA: readonly SchemaVersion[] = [
       accounts: 'id, currency, order',
       statements: 'id, &fileName, seq, contentHash',
       statementResults: 'id',
-      transactions: 'id, accountId, bookingDate, [accountId+bookingDate], statementId, fingerprint',
+      // Few indexes on purpose: each one roughly doubles the cost of writing 100,000 rows.
+      transactions: 'id, bookingDate, [accountId+bookingDate]',
       anchors: '++id, accountId, [accountId+date], statementId',
       recurring: 'key, state',
       csvMappings: 'fingerprint',

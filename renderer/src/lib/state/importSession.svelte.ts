@@ -182,7 +182,11 @@ export class ImportSession {
         let source: MappingSource = 'detected';
         const memory = file.csv?.fingerprint ? remembered.get(file.csv.fingerprint) : undefined;
         if (memory) {
-          fileOptions = { csvMapping: memory.mapping, ...(memory.currency ? { currency: memory.currency } : {}) };
+          fileOptions = {
+            csvMapping: memory.mapping,
+            ...(memory.currency ? { currency: memory.currency } : {}),
+            ...(memory.account ? { account: memory.account } : {}),
+          };
           source = 'remembered';
           const [again] = await this.#client().call(
             'parseStatements',
@@ -378,6 +382,7 @@ export class ImportSession {
         fingerprint,
         mapping,
         ...(f.options.currency ? { currency: f.options.currency } : {}),
+        ...(f.options.account ? { account: f.options.account } : {}),
         savedAt: now,
       });
     }
@@ -400,8 +405,8 @@ export class ImportSession {
       const skipped = this.#files.length - included.length;
       this.#reset();
       this.#message =
-        `Stored ${add.length} file${add.length === 1 ? '' : 's'}: ${entries} entr${entries === 1 ? 'y' : 'ies'}` +
-        (duplicates > 0 ? `, ${duplicates} duplicate${duplicates === 1 ? '' : 's'} left out` : '') +
+        `Stored ${add.length} file${add.length === 1 ? '' : 's'}: ${entries.toLocaleString()} entr${entries === 1 ? 'y' : 'ies'}` +
+        (duplicates > 0 ? `, ${duplicates.toLocaleString()} duplicate${duplicates === 1 ? '' : 's'} left out` : '') +
         (skipped > 0 ? `; ${skipped} file${skipped === 1 ? '' : 's'} not imported` : '') +
         '.';
     } catch (error) {

@@ -39,6 +39,7 @@
  * - `recurringDecisions`: RecurringDecision[] (engine/forecast/recurringComponents.ts shape).
  * - `ledgerInput()` → the stored files in ledger order (`LedgerInputFile[]`) for any other
  *   engine method that needs the ledger.
+ * - `transactionRows()` → every stored transaction (TransactionRow[], by date), cached per version.
  *
  * State is private `$state`; read it through the getters, change it through the methods.
  */
@@ -50,6 +51,7 @@ import type { LedgerInputFile } from '../../../../engine/ledger/buildLedger';
 import { applyLedgerChange, storedLedgerInput, storageError, type LedgerChange } from '../db/applyLedgerChange';
 import type { AccountRecord, CsvMappingRecord, RecurringDecisionRecord, StatementRecord } from '../db/records';
 import { RegistryDb, WorkspaceDb, deleteWorkspaceDb, openWorkspaceDb, type WorkspaceEntry } from '../db/WorkspaceDb';
+import { prepareRows, type TransactionRow } from '../transactions/filterTransactions';
 import type { EngineClient } from '../worker/engineClient';
 import { engineClient } from '../worker/engineClient';
 import type { RecurringFlowsResult } from '../worker/methods';
@@ -118,6 +120,7 @@ export class WorkspaceState {
   #version = $state(0);
   #undo = $state.raw<DecisionStep[]>([]);
   #historyCache = new Map<string, Promise<ForecastInput>>();
+  #rowsCache: { key: string; rows: Promise<TransactionRow[]> } | null = null;
 
   #currencies = $derived([...new Set(this.#accounts.map((a) => a.currency))]);
   #current = $derived(this.#workspaces.find((w) => w.id === this.#currentId) ?? null);
@@ -344,7 +347,25 @@ export class WorkspaceState {
 
   #bump(): void {
     this.#historyCache.clear();
+    this.#rowsCache = null;
     this.#version++;
+  }
+
+  /**
+   * Every stored transaction, sorted by date (then ledger order), with its search text;
+   * loaded once per version, so coming back to the Transactions screen costs nothing.
+   */
+  transactionRows(): Promise<TransactionRow[]> {
+    const db = this.#requireDb();
+    const key = `${this.#currentId}|${this.#version}`;
+    if (this.#rowsCache?.key !== key) {
+      const rows = db.transactions.orderBy('bookingDate').toArray().then(prepareRows);
+      rows.catch(() => {
+        if (this.#rowsCache?.rows === rows) this.#rowsCache = null;
+      });
+      this.#rowsCache = { key, rows };
+    }
+    return this.#rowsCache.rows;
   }
 
   /** The stored files in ledger order, with their parsed content. */

@@ -44,8 +44,8 @@ export interface FilterResult {
 }
 
 /**
- * Prepares stored transactions for filtering, sorted by booking date (then id, so the
- * order is stable). Does not mutate `records`. O(n log n).
+ * Prepares stored transactions for filtering, sorted by booking date, then ledger order
+ * (file and entry order within an account). Does not mutate `records`. O(n log n).
  * @example prepareRows(records)[0].searchText // 'studio rent\nkiln works ltd\ninv-2211'
  */
 export function prepareRows(records: readonly TransactionRecord[]): TransactionRow[] {
@@ -53,9 +53,7 @@ export function prepareRows(records: readonly TransactionRecord[]): TransactionR
     ...r,
     searchText: [r.description, r.counterparty ?? '', r.reference ?? ''].join('\n').toLowerCase(),
   }));
-  rows.sort((a, b) =>
-    a.bookingDate < b.bookingDate ? -1 : a.bookingDate > b.bookingDate ? 1 : a.id < b.id ? -1 : a.id > b.id ? 1 : 0,
-  );
+  rows.sort((a, b) => (a.bookingDate < b.bookingDate ? -1 : a.bookingDate > b.bookingDate ? 1 : a.seq - b.seq));
   return rows;
 }
 
