@@ -32,6 +32,17 @@ export function formatAmount(minor: number, currency: string, options: { readonl
 }
 
 /**
+ * Minor units as whole major units with digit groups, for summary tables where cents are
+ * noise (expected values, quantiles): "22,101".
+ * @throws EngineError UNKNOWN_CURRENCY for a code outside ISO 4217.
+ * @example formatWhole(2210149, 'EUR') // '22,101'
+ */
+export function formatWhole(minor: number, currency: string): string {
+  const unit = 10 ** exponentOf(currency);
+  return formatAmount(Math.round(minor / unit) * unit, currency, { code: false }).replace(/\.\d+$/, '');
+}
+
+/**
  * A probability as a percentage: whole percent from 1% up, one decimal below (so a small
  * but real risk does not read as 0%), "0%" only for exactly zero.
  * @throws EngineError INVALID_ARGUMENT outside [0, 1].

@@ -31,6 +31,7 @@ import {
   formatPercentError,
   formatShortDate,
   formatWeeks,
+  formatWhole,
 } from './plainFormat';
 import { REPORT_CSS } from './reportStyles';
 
@@ -116,7 +117,7 @@ function legend(): string {
 
 function weeksSection(view: ThirteenWeekView): string {
   const c = view.currency;
-  const amount = (v: number | null) => (v === null ? '–' : e(formatAmount(v, c, { code: false })));
+  const amount = (v: number | null) => (v === null ? '–' : e(formatWhole(v, c)));
   const head = ['Week', 'Days', 'In', 'Out', 'Net', 'Expected close', 'P10', 'Median', 'P90', 'Below by then'];
   const rows = view.weeks.map((w) => [
     String(w.week),
@@ -137,7 +138,7 @@ function weeksSection(view: ThirteenWeekView): string {
   return [
     '<section id="weeks">',
     '<h2>13-week cash view</h2>',
-    `<p class="note">Amounts in ${e(c)}. Weeks of seven days counted from ${e(formatDate(view.asOf))}, the last day of the statements. ${e(split)} P10, median and P90: the closing balance that 10%, 50% and 90% of the simulated paths stay below. “Below by then”: the estimated chance of having been below ${e(formatAmount(view.threshold, c))} on any day up to the week’s end.${view.complete ? '' : ` The forecast covers ${view.weeks.length} whole weeks only.`}</p>`,
+    `<p class="note">Amounts in ${e(c)}, rounded to whole units. Weeks of seven days counted from ${e(formatDate(view.asOf))}, the last day of the statements. ${e(split)} P10, median and P90: the closing balance that 10%, 50% and 90% of the simulated paths stay below. “Below by then”: the estimated chance of having been below ${e(formatAmount(view.threshold, c))} on any day up to the week’s end.${view.complete ? '' : ` The forecast covers ${view.weeks.length} whole weeks only.`}</p>`,
     table(head, rows, [false, false, true, true, true, true, true, true, true, true], (i) =>
       (view.weeks[i]?.pCrossedByClose ?? 0) >= 0.1 ? 'risk' : '',
     ),
@@ -239,30 +240,24 @@ function dataSection(input: ReportInput): string {
 
 function scenarioSection(c: ScenarioComparison): string {
   const cur = c.currency;
-  const money = (v: number) => e(formatAmount(v, cur, { code: false }));
+  const money = (v: number) => e(formatWhole(v, cur));
   const head = ['', ...c.columns.map((col) => e(col.name))];
   const rows: string[][] = [];
   c.dates.forEach((date, k) => {
-    rows.push([
-      e(`Median on ${formatDate(date)} (P10 – P90), ${cur}`),
-      ...c.columns.map((col) => {
-        const a = col.at[k] as (typeof col.at)[number];
-        return `${money(a.p50)} (${money(a.p10)} – ${money(a.p90)})`;
-      }),
-    ]);
-    rows.push([
-      e(`Chance below ${formatAmount(c.threshold, cur)} by ${formatDate(date)}`),
-      ...c.columns.map((col) => e(formatPercent((col.at[k] as (typeof col.at)[number]).pCrossed))),
-    ]);
+    const at = (col: (typeof c.columns)[number]) => col.at[k] as (typeof col.at)[number];
+    rows.push([`<strong>${e(formatDate(date))}</strong>: median`, ...c.columns.map((col) => money(at(col).p50))]);
+    rows.push(['P10 – P90', ...c.columns.map((col) => `${money(at(col).p10)} – ${money(at(col).p90)}`)]);
+    rows.push(['chance below by then', ...c.columns.map((col) => e(formatPercent(at(col).pCrossed)))]);
   });
   const q = (x: { weeks: number | null }) => (x.weeks === null ? 'beyond' : formatWeeks(x.weeks));
   rows.push([
-    'Runway: 10% / half of the paths below the threshold within',
+    'Runway (10% / half of the paths)',
     ...c.columns.map((col) => e(`${q(col.runway.p10)} / ${q(col.runway.p50)}`)),
   ]);
   return [
     '<section id="scenarios">',
     '<h2>Scenarios compared</h2>',
+    `<p class="note">Balances in ${e(cur)}, rounded to whole units; “chance below” is the estimated chance of having been below ${e(formatAmount(c.threshold, cur))} on any day up to that date; runway is the time by which that share of the simulated paths has been below it.</p>`,
     table(head, rows, [false, ...c.columns.map(() => true)]),
     '<ul class="plain">',
     ...c.differences.flatMap((d) => d.sentences.map((s) => `<li>${e(s)}</li>`)),

@@ -20,11 +20,13 @@ svg.fan { max-width: 100%; height: auto; font-family: inherit; }
 svg.fan text { fill: var(--ink); }
 .legend { display: flex; flex-wrap: wrap; gap: 1rem; font-size: 0.9rem; color: var(--muted); }
 .legend svg { vertical-align: middle; margin-right: 0.3rem; }
-table { border-collapse: collapse; width: 100%; margin: 0.5rem 0; font-size: 0.9rem; }
-th, td { padding: 0.3rem 0.45rem; border-bottom: 1px solid var(--rule); text-align: left; vertical-align: top; }
+table { border-collapse: collapse; width: 100%; margin: 0.5rem 0; font-size: 0.86rem; }
+th, td { padding: 0.25rem 0.4rem; border-bottom: 1px solid var(--rule); text-align: left; vertical-align: top; }
 th { font-weight: 600; background: #f4f6f8; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
-#weeks td:nth-child(2) { white-space: nowrap; }
+#weeks td:nth-child(2), #recurring td:nth-child(4) { white-space: nowrap; }
+#scenarios th { white-space: normal; text-align: right; }
+#scenarios th:first-child, #scenarios td:first-child { text-align: left; }
 tr.risk td { color: var(--vermillion); }
 ul.plain { padding-left: 1.2rem; }
 footer { margin-top: 2.5rem; padding-top: 0.75rem; border-top: 1px solid var(--rule); color: var(--muted); font-size: 0.9rem; }

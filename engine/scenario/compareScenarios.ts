@@ -74,7 +74,7 @@ export interface ScenarioComparison {
 }
 
 export interface CompareOptions {
-  /** Dates to compare at (within the horizon, ascending after sorting); default every 30 days and the last day. */
+  /** Dates to compare at (within the horizon, ascending after sorting); default every 30 days and the last day (30 days apart, none within a week of the last). */
   readonly dates?: readonly CalendarDate[];
   /** The base column's name (default "Base forecast"). */
   readonly baseName?: string;
@@ -82,8 +82,9 @@ export interface CompareOptions {
 
 function defaultDates(asOf: CalendarDate, horizon: number): CalendarDate[] {
   const days: number[] = [];
-  for (let d = 30; d < horizon; d += 30) days.push(d);
-  if (days[days.length - 1] !== horizon) days.push(horizon);
+  // Every 30 days, but not within a week of the last day, which always ends the list.
+  for (let d = 30; d + 7 <= horizon; d += 30) days.push(d);
+  days.push(horizon);
   return days.map((d) => addDays(asOf, d));
 }
 
