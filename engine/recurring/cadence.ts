@@ -78,6 +78,8 @@ export function describeCadence(c: Cadence): string {
         : `every ${c.everyWeeks} weeks on ${WEEKDAYS[c.weekday - 1]}`;
     case 'monthDay':
       if (c.everyMonths === 12) return `yearly on ${MONTHS[c.phase]} ${c.day}`;
+      // The 31st is clamped to each month's end, so say what happens.
+      if (c.day >= 31) return `${monthWord(c.everyMonths)} on the last day of the month`;
       return `${monthWord(c.everyMonths)} on the ${ordinal(c.day)}`;
     case 'monthWeekday':
       return `${monthWord(c.everyMonths)} on the ${ordinal(c.nth)} ${WEEKDAYS[c.weekday - 1]}`;

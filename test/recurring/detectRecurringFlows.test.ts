@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { detectRecurringFlows, type RecurringInput } from '../../engine/recurring/detectRecurringFlows';
-import { scheduleDays } from '../../engine/recurring/cadence';
+import { describeCadence, scheduleDays } from '../../engine/recurring/cadence';
 import { adjustBusinessDay, lastBusinessDayOfMonth } from '../../engine/recurring/businessDays';
 import { normaliseLabel } from '../../engine/recurring/normaliseLabel';
 import { addDays, daysFromCivil, fromDayNumber, isoWeekday, toDayNumber } from '../../engine/core/dates';
@@ -50,6 +50,13 @@ describe('schedules', () => {
       'none',
     );
     expect(last.map(fromDayNumber)).toEqual(['2025-01-31', '2025-02-28']);
+  });
+
+  it('describes a clamped 31st as the month end', () => {
+    expect(describeCadence({ kind: 'monthDay', everyMonths: 1, day: 31, phase: 0 })).toBe(
+      'monthly on the last day of the month',
+    );
+    expect(describeCadence({ kind: 'monthDay', everyMonths: 1, day: 30, phase: 0 })).toBe('monthly on the 30th');
   });
 
   it('keeps the quarter phase', () => {
