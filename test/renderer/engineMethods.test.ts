@@ -7,7 +7,7 @@ import { importStatement } from '../../engine/import/registry';
 import type { ImportResult } from '../../engine/import/types';
 import { buildLedger, type LedgerInputFile } from '../../engine/ledger/buildLedger';
 import { detectRecurringFlows } from '../../engine/recurring/detectRecurringFlows';
-import { engineMethods } from '../../renderer/src/lib/worker/methods';
+import { STORED_FILES_NEEDED, engineMethods } from '../../renderer/src/lib/worker/methods';
 
 const DEMO = new URL('../../resources/demo/statements/', import.meta.url);
 const NAMES = [
@@ -48,13 +48,17 @@ describe('engine methods', () => {
   });
 
   it('forecastHistory is historyFromLedger of buildLedger, as in the CLI', async () => {
-    const history = await engineMethods.forecastHistory({ files: files(), scope: { currency: 'EUR' } }, context);
+    const stored = { revision: 'w1:a,b,c,d,e', files: files() };
+    const history = await engineMethods.forecastHistory({ stored, scope: { currency: 'EUR' } }, context);
     expect(history).toEqual(historyFromLedger(buildLedger(files()), { currency: 'EUR' }));
     expect(history.asOf).toBe('2026-10-31');
   });
 
   it('recurringFlows detects on the scope history with its as-of date', async () => {
-    const r = await engineMethods.recurringFlows({ files: files(), scope: { currency: 'EUR' } }, context);
+    const r = await engineMethods.recurringFlows(
+      { stored: { revision: 'w1:recurring', files: files() }, scope: { currency: 'EUR' } },
+      context,
+    );
     const h = historyFromLedger(buildLedger(files()), { currency: 'EUR' });
     expect(r.asOf).toBe(h.asOf);
     expect(r.flows).toEqual(
@@ -69,6 +73,27 @@ describe('engine methods', () => {
         { asOf: h.asOf },
       ),
     );
+  });
+
+  it('keeps the stored files by revision and asks for them when it does not have them', async () => {
+    await engineMethods.buildLedger({ stored: { revision: 'w2:x', files: files() } }, context);
+    const seen: string[] = [];
+    const again = await engineMethods.forecastHistory(
+      { stored: { revision: 'w2:x' }, scope: { currency: 'EUR' } },
+      { progress: (_, label) => seen.push(label) },
+    );
+    expect(again.asOf).toBe('2026-10-31');
+    expect(seen).not.toContain('Building the ledger'); // the kept ledger was used
+    await expect(
+      engineMethods.forecastHistory({ stored: { revision: 'w2:other' }, scope: { currency: 'EUR' } }, context),
+    ).rejects.toMatchObject({ code: STORED_FILES_NEEDED });
+    // Stored files plus an import's new files, in that order.
+    const csv = 'business-export-2026-08-10.csv';
+    const extra = [
+      { file: csv, result: importStatement(readFileSync(new URL(csv, DEMO)), { fileName: csv }) as ImportResult },
+    ];
+    const ledger = await engineMethods.buildLedger({ stored: { revision: 'w2:x' }, extra }, context);
+    expect(ledger).toEqual(buildLedger([...files(), ...extra]));
   });
 
   it('buildLedger reports its progress and refuses a file with errors', async () => {

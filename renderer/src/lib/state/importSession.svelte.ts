@@ -248,14 +248,12 @@ export class ImportSession {
     this.#ledgerError = null;
     const included = this.#included;
     if (included.length === 0 || included.some((f) => hasErrors(f.parsed.result))) return;
-    const stored = await this.#workspace.ledgerInput();
-    const files = [
-      ...stored.files,
-      ...included.map((f) => ({ file: f.name, result: f.parsed.result as ImportResult })),
-    ];
+    const extra = included.map((f) => ({ file: f.name, result: f.parsed.result as ImportResult }));
     this.#progress = { share: 0.9, label: 'Matching accounts and removing duplicates' };
     try {
-      const ledger = await this.#client().call('buildLedger', { files }, { signal, onProgress: this.#onProgress });
+      const { value: ledger, ids } = await this.#workspace.withStoredFiles((stored) =>
+        this.#client().call('buildLedger', { stored, extra }, { signal, onProgress: this.#onProgress }),
+      );
       const accounts = new Map(ledger.accounts.map((a) => [a.id, a]));
       const byFile = new Map<string, PreviewAccountRow[]>();
       for (const report of ledger.files) {
@@ -267,8 +265,8 @@ export class ImportSession {
           }),
         );
       }
-      const nextSeq = stored.records.reduce((m, r) => Math.max(m, r.seq), 0) + 1;
-      this.#preview = { ledger, basedOn: stored.ids, nextSeq, byFile };
+      const nextSeq = this.#workspace.statements.reduce((m, r) => Math.max(m, r.seq), 0) + 1;
+      this.#preview = { ledger, basedOn: ids, nextSeq, byFile };
     } catch (error) {
       if (error instanceof CancelledError) throw error;
       this.#ledgerError = `These files cannot be put together: ${(error as Error).message}`;

@@ -40,6 +40,8 @@
  * - `ledgerInput()` → the stored files in ledger order (`LedgerInputFile[]`) for any other
  *   engine method that needs the ledger.
  * - `transactionRows()` → every stored transaction (TransactionRow[], by date), cached per version.
+ * - `withStoredFiles(call)` → runs a worker method that takes `stored: StoredFiles`
+ *   (./worker/methods.ts), sending the stored files only when the worker lacks them.
  *
  * State is private `$state`; read it through the getters, change it through the methods.
  */
@@ -52,9 +54,8 @@ import { applyLedgerChange, storedLedgerInput, storageError, type LedgerChange }
 import type { AccountRecord, CsvMappingRecord, RecurringDecisionRecord, StatementRecord } from '../db/records';
 import { RegistryDb, WorkspaceDb, deleteWorkspaceDb, openWorkspaceDb, type WorkspaceEntry } from '../db/WorkspaceDb';
 import { prepareRows, type TransactionRow } from '../transactions/filterTransactions';
-import type { EngineClient } from '../worker/engineClient';
-import { engineClient } from '../worker/engineClient';
-import type { RecurringFlowsResult } from '../worker/methods';
+import { EngineCallError, engineClient, type EngineClient } from '../worker/engineClient';
+import { STORED_FILES_NEEDED, type RecurringFlowsResult, type StoredFiles } from '../worker/methods';
 
 const CURRENT_KEY = 'ebbline.currentWorkspace';
 
@@ -379,6 +380,25 @@ export class WorkspaceState {
     return new Map(all.map((m) => [m.fingerprint, m]));
   }
 
+  /**
+   * Runs a worker call that needs the stored files: first by revision only (the worker
+   * keeps the last stored files and their ledger), then, if the worker does not have them,
+   * again with the files read from the database.
+   * @returns the call's value and the stored file ids (in ledger order) it was based on.
+   */
+  async withStoredFiles<T>(call: (stored: StoredFiles) => Promise<T>): Promise<{ value: T; ids: string[] }> {
+    const revisionOf = (ids: readonly string[]) => `${this.#currentId}:${ids.join(',')}`;
+    const ids = this.#statements.map((s) => s.id);
+    if (ids.length === 0) return { value: await call({ revision: revisionOf(ids), files: [] }), ids };
+    try {
+      return { value: await call({ revision: revisionOf(ids) }), ids };
+    } catch (error) {
+      if (!(error instanceof EngineCallError) || error.code !== STORED_FILES_NEEDED) throw error;
+    }
+    const input = await this.ledgerInput();
+    return { value: await call({ revision: revisionOf(input.ids), files: input.files }), ids: input.ids };
+  }
+
   /** Stores a change of files and ledger (one transaction), then reloads. See applyLedgerChange. */
   async applyChange(change: LedgerChange): Promise<void> {
     await applyLedgerChange(this.#requireDb(), change);
@@ -407,9 +427,9 @@ export class WorkspaceState {
     let cached = this.#historyCache.get(key);
     if (!cached) {
       const decisions = this.recurringDecisions;
-      cached = this.ledgerInput()
-        .then(({ files }) => this.#engineClient().call('forecastHistory', { files, scope }, options))
-        .then((history) => ({ history, decisions }));
+      cached = this.withStoredFiles((stored) =>
+        this.#engineClient().call('forecastHistory', { stored, scope }, options),
+      ).then(({ value: history }) => ({ history, decisions }));
       // A failed or cancelled call is not remembered.
       cached.catch(() => this.#historyCache.delete(key));
       this.#historyCache.set(key, cached);
@@ -419,8 +439,10 @@ export class WorkspaceState {
 
   /** Recurring flows of a scope, found in the worker exactly as the forecast finds them. */
   async recurringFlows(scope: SeriesScope, options: WorkerCallOptions = {}): Promise<RecurringFlowsResult> {
-    const { files } = await this.ledgerInput();
-    return this.#engineClient().call('recurringFlows', { files, scope }, options);
+    const { value } = await this.withStoredFiles((stored) =>
+      this.#engineClient().call('recurringFlows', { stored, scope }, options),
+    );
+    return value;
   }
 
   /**

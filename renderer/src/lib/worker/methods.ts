@@ -3,8 +3,12 @@
  * progress, and returns plain data. They run inside the worker, never on the window's
  * thread.
  *
- * Methods that need the ledger take the stored files (`LedgerInputFile[]`, in import order)
- * and rebuild it with `buildLedger`, exactly as the CLI does for the same files.
+ * Methods that need the ledger take the stored files (`StoredFiles`: the workspace's import
+ * results in import order) and rebuild it with `buildLedger`, exactly as the CLI does for
+ * the same files. The worker keeps the last stored files and their ledger by revision, so
+ * the window sends the files (a structured clone of every entry) only when the worker does
+ * not have them: a call with `{ revision }` alone fails with code `STORED_FILES_NEEDED`,
+ * and the caller repeats it with the files.
  *
  * Imports are relative, not `@engine/…`, so Vitest (which has no aliases) can load this file.
  */
@@ -17,8 +21,8 @@ import type { SeriesScope } from '../../../../engine/ledger/dailySeries';
 import type { Ledger } from '../../../../engine/ledger/types';
 import { historyFromLedger, type ForecastHistory } from '../../../../engine/forecast/history';
 import { detectRecurringFlows, type DetectedRecurringFlow } from '../../../../engine/recurring/detectRecurringFlows';
-import type { MethodContext } from './protocol';
 import { contentHash } from './contentHash';
+import type { MethodContext } from './protocol';
 
 export interface ImportFileInput {
   readonly name: string;
@@ -45,13 +49,39 @@ export interface RecurringFlowsResult {
   readonly flows: readonly DetectedRecurringFlow[];
 }
 
-function ledgerOf(files: readonly LedgerInputFile[], context: MethodContext): Ledger {
+/**
+ * The workspace's stored files as a method parameter: `revision` names them (it changes
+ * whenever a file is added or removed); `files` may be left out when the worker has them.
+ */
+export interface StoredFiles {
+  readonly revision: string;
+  readonly files?: readonly LedgerInputFile[];
+}
+
+/** Error code of a call whose stored files the worker does not have (send them). */
+export const STORED_FILES_NEEDED = 'STORED_FILES_NEEDED';
+
+let kept: { revision: string; files: readonly LedgerInputFile[]; ledger: Ledger | null } | null = null;
+
+function storedFiles(stored: StoredFiles): readonly LedgerInputFile[] {
+  if (stored.files) {
+    if (kept?.revision !== stored.revision) kept = { revision: stored.revision, files: stored.files, ledger: null };
+    return stored.files;
+  }
+  if (kept?.revision === stored.revision) return kept.files;
+  throw Object.assign(new Error('the engine needs the stored files again'), { code: STORED_FILES_NEEDED });
+}
+
+function storedLedger(stored: StoredFiles, context: MethodContext): Ledger {
+  const files = storedFiles(stored);
+  if (kept?.revision === stored.revision && kept.ledger) return kept.ledger;
   context.progress(0, 'Building the ledger');
-  return buildLedger(files);
+  const ledger = buildLedger(files);
+  if (kept?.revision === stored.revision) kept.ledger = ledger;
+  return ledger;
 }
 
 export const engineMethods = {
-  ...analysisMethods,
   /** Parses statement files; the caller decides whether to store them (all or nothing). */
   async parseStatements(params: { files: readonly ImportFileInput[] }, context: MethodContext): Promise<ParsedFile[]> {
     const results: ParsedFile[] = [];
@@ -79,9 +109,25 @@ export const engineMethods = {
     return results;
   },
 
-  /** The ledger of the given files, in the order given (the CLI's `buildLedger`). */
-  async buildLedger(params: { files: readonly LedgerInputFile[] }, context: MethodContext): Promise<Ledger> {
-    const ledger = ledgerOf(params.files, context);
+  /**
+   * The ledger of the stored files followed by `extra` files (an import's new files), in
+   * that order, or of `files` when given instead (the CLI's `buildLedger`).
+   */
+  async buildLedger(
+    params: { stored?: StoredFiles; extra?: readonly LedgerInputFile[]; files?: readonly LedgerInputFile[] },
+    context: MethodContext,
+  ): Promise<Ledger> {
+    let ledger: Ledger;
+    if (params.files) {
+      context.progress(0, 'Building the ledger');
+      ledger = buildLedger(params.files);
+    } else if (params.stored && (params.extra?.length ?? 0) === 0) {
+      ledger = storedLedger(params.stored, context);
+    } else {
+      const base = params.stored ? storedFiles(params.stored) : [];
+      context.progress(0, 'Building the ledger');
+      ledger = buildLedger([...base, ...(params.extra ?? [])]);
+    }
     context.progress(1, 'Ledger built');
     return ledger;
   },
@@ -91,10 +137,10 @@ export const engineMethods = {
    * files through `buildLedger` + `historyFromLedger`, as the CLI does.
    */
   async forecastHistory(
-    params: { files: readonly LedgerInputFile[]; scope: SeriesScope; asOf?: string },
+    params: { stored: StoredFiles; scope: SeriesScope; asOf?: string },
     context: MethodContext,
   ): Promise<ForecastHistory> {
-    const ledger = ledgerOf(params.files, context);
+    const ledger = storedLedger(params.stored, context);
     context.progress(0.6, 'Collecting the history');
     const history = historyFromLedger(ledger, params.scope, params.asOf);
     context.progress(1, 'History ready');
@@ -103,10 +149,10 @@ export const engineMethods = {
 
   /** Recurring flows of a scope, detected exactly as the forecast detects them. */
   async recurringFlows(
-    params: { files: readonly LedgerInputFile[]; scope: SeriesScope },
+    params: { stored: StoredFiles; scope: SeriesScope },
     context: MethodContext,
   ): Promise<RecurringFlowsResult> {
-    const ledger = ledgerOf(params.files, context);
+    const ledger = storedLedger(params.stored, context);
     context.progress(0.4, 'Collecting the history');
     const history = historyFromLedger(ledger, params.scope);
     context.progress(0.6, 'Finding recurring flows');
