@@ -16,13 +16,19 @@
  */
 import { EngineError } from '../core/errors';
 
-/** The JSON path of a key: `$.a.b`, `$.list[3]`, `$["odd key"]`. */
+/**
+ * The JSON path of a key: `$.a.b`, `$.list[3]`, `$["odd key"]`.
+ * @example childPath('$.tables', 'csv mappings') // '$.tables["csv mappings"]'
+ */
 export function childPath(path: string, key: string | number): string {
   if (typeof key === 'number') return `${path}[${key}]`;
   return /^[A-Za-z_$][A-Za-z0-9_$]*$/.test(key) ? `${path}.${key}` : `${path}[${JSON.stringify(key)}]`;
 }
 
-/** Why a value cannot be stored, or null when it can. */
+/**
+ * Why a value cannot be stored (the value itself is checked, not its children), or null.
+ * @example unstorable(2 ** 53) // '9007199254740992 is too large to be kept exactly (limit ±9007199254740991)'
+ */
 export function unstorable(value: unknown): string | null {
   switch (typeof value) {
     case 'string':

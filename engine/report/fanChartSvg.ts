@@ -15,7 +15,7 @@ import { escapeHtml } from './escapeHtml';
 import { formatAmount, formatDate } from './plainFormat';
 import { bandData, coordinate, lineData } from './svgPath';
 
-/** Okabe–Ito colours used by the report. */
+/** Okabe–Ito colours used by the report (from memory: blue rgb(0,114,178), vermillion rgb(213,94,0), orange rgb(230,159,0)). */
 export const REPORT_COLOURS = { blue: '#0072B2', vermillion: '#D55E00', orange: '#E69F00', black: '#000000' } as const;
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];

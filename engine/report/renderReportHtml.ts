@@ -89,7 +89,11 @@ function table(
   ].join('\n');
 }
 
-/** The report's one-sentence answer (plain text, unescaped). */
+/**
+ * The report's one-sentence answer (plain text, unescaped).
+ * @example reportQuestion(result, 'the business account')
+ *   // 'Estimated chance that the balance of the business account falls below 0.00 EUR within the next 90 days: 7% (± 0.4%)'
+ */
 export function reportQuestion(result: ForecastResult, scopeLabel: string): string {
   const line = formatAmount(result.threshold, result.currency);
   const p = result.shortfall.probability;

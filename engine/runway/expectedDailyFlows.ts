@@ -33,7 +33,10 @@ export interface ExpectedDailyFlows {
   readonly outflow: Float64Array;
 }
 
-/** Mean of an amount distribution (0 for an empty empirical sample, as the simulation draws). */
+/**
+ * Mean of an amount distribution (0 for an empty empirical sample, as the simulation draws).
+ * @example amountMean({ kind: 'empirical', values: [-90000, -93000] }) // -91500
+ */
 export function amountMean(a: AmountDistribution): number {
   switch (a.kind) {
     case 'fixed':

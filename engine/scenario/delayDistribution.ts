@@ -51,7 +51,10 @@ export function uniformDelays(min: number, max: number): DelayDistribution {
   return { offsets, weights: offsets.map(() => 1 / offsets.length) };
 }
 
-/** Mean and standard deviation of a delay distribution (population form). */
+/**
+ * Mean and standard deviation of a delay distribution (population form).
+ * @example delayMoments(delayDistributionOf([0, 10])) // { mean: 5, sd: 5 }
+ */
 export function delayMoments(dist: DelayDistribution): { mean: number; sd: number } {
   let mean = 0;
   for (let i = 0; i < dist.offsets.length; i++) mean += (dist.offsets[i] as number) * (dist.weights[i] as number);

@@ -81,7 +81,11 @@ function checkAsOf(asOf: CalendarDate): void {
   if (!parseIsoDate(asOf)) throw new EngineError('INVALID_DATE', `not a calendar date (YYYY-MM-DD): "${asOf}"`);
 }
 
-/** Due date of the commission: issue date + 30 days, on the next business day. */
+/**
+ * Due date of the commission: issue date + 30 days, on the next business day.
+ * @throws EngineError INVALID_DATE for a malformed as-of date.
+ * @example commissionDueDate('2026-10-31') // '2026-11-16' (issued 16 Oct; due Sunday 15 Nov, moved to Monday)
+ */
 export function commissionDueDate(asOf: CalendarDate = DEMO_AS_OF): CalendarDate {
   checkAsOf(asOf);
   return nextBusinessDay(addDays(asOf, -DEMO_COMMISSION.issuedDaysBeforeAsOf + DEMO_COMMISSION.termsDays));

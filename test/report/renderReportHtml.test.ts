@@ -113,6 +113,7 @@ describe('renderReportHtml', () => {
     const html = renderReportHtml(input());
     expect(section(html, 'weeks').match(/<tr>|<tr class="risk">/g)).toHaveLength(14); // header + 13 weeks
     const chart = section(html, 'chart');
+    // From memory: Okabe and Ito (2008) blue rgb(0, 114, 178) = #0072B2, vermillion rgb(213, 94, 0) = #D55E00.
     expect(chart).toMatch(/<path class="band-outer" d="M[^"]+Z" fill="#0072B2" fill-opacity="0.18"/);
     expect(chart).toMatch(/<path class="band-inner" d="M[^"]+Z" fill="#0072B2" fill-opacity="0.38"/);
     expect(chart).toMatch(/<line class="threshold"[^>]*stroke="#D55E00"[^>]*stroke-dasharray/);

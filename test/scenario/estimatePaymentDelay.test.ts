@@ -43,6 +43,7 @@ describe('findInvoicePayments', () => {
 });
 
 describe('estimatePaymentDelay', () => {
+  // Common practice, no source: "net 30" means due 30 days after the invoice date.
   // Net 30 invoices with known lateness (days after the due date).
   const late = [0, 5, 10, 10, 20, -2];
   const invoices = late.map((_, i) => ({

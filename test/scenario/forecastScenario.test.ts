@@ -4,6 +4,7 @@ import { runForecast } from '../../engine/forecast/runForecast';
 import { validatePlan, type Plan } from '../../engine/plan/plan';
 import { prepareForecastBasis } from '../../engine/scenario/forecastBasis';
 import { forecastScenario } from '../../engine/scenario/forecastScenario';
+import { forecastWithPaths } from '../../engine/scenario/forecastWithPaths';
 import { syntheticHistory } from './syntheticHistory';
 
 const history = syntheticHistory();
@@ -40,6 +41,8 @@ describe('forecastScenario on a prepared basis', () => {
     // The unmatched plan change is reported, not dropped.
     expect(viaBasis.result.notes.some((n) => n.includes('nothing like this'))).toBe(true);
     expect(viaBasis.components.map((c) => c.key)).toContain('plan:0:Kiln deposit');
+    // The one-call helper takes runForecast's own inputs.
+    expect(forecastWithPaths(history, config).result).toEqual(direct);
   });
 
   it('shares the draws of untouched flows: a certain one-off shifts every path by its amount', () => {
