@@ -4,7 +4,7 @@
  * plan's pauses and scalings applied on top.
  */
 import { fromDayNumber, toDayNumber, type CalendarDate } from '../core/dates';
-import { scheduleDays, type Cadence } from '../recurring/cadence';
+import { cadencePeriodDays, scheduleDays, type Cadence } from '../recurring/cadence';
 import type { DetectedRecurringFlow } from '../recurring/detectRecurringFlows';
 import type { RecurringChange } from '../plan/plan';
 import type { AmountDistribution, RecurringComponent } from '../simulate/types';
@@ -95,12 +95,60 @@ export function explainedEntryIds(
   return explained;
 }
 
+/** The nominal day (by `cadence`) that an occurrence seen on `day` belongs to: the nearest one, the earlier on a tie. */
+function lastSeenNominal(cadence: Cadence, rule: DetectedRecurringFlow['businessDayRule'], day: number): number {
+  const reach = Math.ceil(cadencePeriodDays(cadence)) + 7;
+  let best = day;
+  let distance = Infinity;
+  for (const n of scheduleDays(cadence, day - reach, day + reach, rule)) {
+    if (Math.abs(n - day) < distance) {
+      best = n;
+      distance = Math.abs(n - day);
+    }
+  }
+  return best;
+}
+
+/**
+ * The component of one occurrence due at offset `day` whose spread reaches back into the
+ * history: conditioned on not having happened by the as-of date. With p the chance of an
+ * occurrence and W the weight of the offsets that would have landed in the history, it
+ * happens with probability p(1 − W)/(1 − pW), on the remaining offsets. Null when none remain.
+ */
+function dueComponent(
+  base: Omit<RecurringComponent, 'key' | 'days' | 'amount'>,
+  day: number,
+  amount: AmountDistribution,
+): Omit<RecurringComponent, 'key'> | null {
+  const offsets: number[] = [];
+  const weights: number[] = [];
+  let total = 0;
+  let before = 0;
+  base.timing.offsets.forEach((o, i) => {
+    const w = Math.max(0, base.timing.weights[i] ?? 0);
+    total += w;
+    if (day + o < 0) before += w;
+    else {
+      offsets.push(o);
+      weights.push(w);
+    }
+  });
+  if (offsets.length === 0 || total === 0) return null;
+  const p = base.probability;
+  const gone = before / total;
+  return { ...base, days: [day], amount, timing: { offsets, weights }, probability: (p * (1 - gone)) / (1 - p * gone) };
+}
+
 /**
  * Builds the recurring components of a forecast.
  *
  * Which flows are projected: not ended, not dismissed, and either confirmed/edited by the
  * user or suggested with confidence ≥ AUTO_CONFIDENCE. Days are offsets from the first
- * forecast day (asOf + 1).
+ * forecast day (asOf + 1). The schedule continues after the nominal date of the last
+ * occurrence the history shows, so an occurrence paid early (before the as-of date) is not
+ * counted twice and one due on the as-of date but not paid yet is not lost; an occurrence
+ * whose timing spread reaches back into the history is conditioned on not having happened
+ * yet (see dueComponent).
  *
  * @example projectRecurring(flows, [], [], '2026-10-31', 90).components.length
  */
@@ -139,10 +187,19 @@ export function projectRecurring(
       continue;
     }
     const cadence = decision?.edits?.cadence ?? flow.cadence;
-    // Two years ahead at least, so a yearly flow beyond the horizon still has a next date.
-    const scheduled = scheduleDays(cadence, first, Math.max(last, first + 730), flow.businessDayRule).map(
-      (d) => d - first,
-    );
+    const offsets = flow.timing.offsets.length ? flow.timing.offsets : [0];
+    const earliest = Math.min(...offsets);
+    const latest = Math.max(...offsets);
+    // Nominal dates after the one the last seen occurrence belongs to, from the first one
+    // whose spread can still reach the forecast; two years ahead at least, so a yearly flow
+    // beyond the horizon still has a next date.
+    const seen = lastSeenNominal(cadence, flow.businessDayRule, toDayNumber(flow.lastDate));
+    const scheduled = scheduleDays(
+      cadence,
+      Math.max(seen + 1, first - Math.max(0, latest)),
+      Math.max(last, first + 730),
+      flow.businessDayRule,
+    ).map((d) => d - first);
     const amount: AmountDistribution =
       decision?.edits?.amount !== undefined
         ? { kind: 'fixed', value: decision.edits.amount }
@@ -165,21 +222,33 @@ export function projectRecurring(
       return factor;
     };
     const byFactor = new Map<number, number[]>();
+    const pieces: RecurringComponent[] = [];
     for (const d of scheduled) {
       if (d >= horizon || paused(d)) continue;
       const factor = factorOn(d);
+      if (d + earliest < 0) {
+        // Due around the as-of date and not seen yet: it can only come from the first
+        // forecast day on, so its timing is the flow's spread given that it has not happened
+        // by the as-of date (offsets that land in the history removed, weights renormalised),
+        // and its chance is that of happening given it has not happened yet.
+        const due = dueComponent(base, d, factor === 1 ? amount : scaled(amount, factor));
+        if (due) pieces.push({ ...due, key: `${flow.key}#due:${fromDayNumber(first + d)}` });
+        continue;
+      }
       const list = byFactor.get(factor);
       if (list) list.push(d);
       else byFactor.set(factor, [d]);
     }
-    const pieces: RecurringComponent[] = [...byFactor].map(([factor, pieceDays]) => ({
-      ...base,
-      key: factor === 1 ? flow.key : `${flow.key}#scaled×${factor}`,
-      days: pieceDays,
-      amount: factor === 1 ? amount : scaled(amount, factor),
-    }));
+    pieces.unshift(
+      ...[...byFactor].map(([factor, pieceDays]) => ({
+        ...base,
+        key: factor === 1 ? flow.key : `${flow.key}#scaled×${factor}`,
+        days: pieceDays,
+        amount: factor === 1 ? amount : scaled(amount, factor),
+      })),
+    );
     components.push(...pieces);
-    const next = scheduled.find((d) => !paused(d));
+    const next = scheduled.find((d) => d >= 0 && !paused(d)) ?? scheduled.find((d) => !paused(d));
     projected.push({
       flow,
       status: decision ? (decision.state === 'edited' ? 'edited' : 'confirmed') : 'suggested',
