@@ -6,8 +6,9 @@
  * lateness can only be measured against something else. Three methods, tried in order:
  *
  * 1. Invoice dates (best): the user has entered issued invoices (number, issue date,
- *    payment terms). Each is matched to the first incoming payment whose text contains its
- *    number; lateness = payment date − (issue date + terms days).
+ *    payment terms). Each is matched to the first incoming payment on or after its issue
+ *    date whose text contains its number (compared on letters and digits only, so
+ *    "INV-2025-031" matches "inv 2025/031"); lateness = payment date − (issue date + terms).
  *    Limit: invoices still unpaid on the as-of date are not observations; when some of them
  *    are already overdue the estimate is too short, and the explanation says how many.
  * 2. Monthly spacing: a counterparty that pays about once a month for monthly invoices.
@@ -87,10 +88,10 @@ const DEFAULT_MIN_OBSERVATIONS = 4;
 /** Two payments closer than this are not one invoice a month (instalments, a part payment). */
 const MIN_MONTHLY_GAP = 10;
 
-function matchesCounterparty(p: InvoicePayment, entry: HistoryEntry | undefined, text: string | undefined): boolean {
+function matchesCounterparty(entry: HistoryEntry, text: string | undefined): boolean {
   if (!text) return true;
   const t = text.toLowerCase();
-  return (p.counterparty ?? '').toLowerCase().includes(t) || (entry?.description ?? '').toLowerCase().includes(t);
+  return (entry.counterparty ?? '').toLowerCase().includes(t) || entry.description.toLowerCase().includes(t);
 }
 
 /** Upper-case letters and digits only, for matching invoice numbers however they are written. */
@@ -104,16 +105,17 @@ function containsReference(haystack: string, needle: string): boolean {
   for (;;) {
     const i = haystack.indexOf(needle, from);
     if (i < 0) return false;
-    const after = haystack.charCodeAt(i + needle.length);
-    // "INV2025031" must not match inside "INV20250310".
-    if (!(after >= 48 && after <= 57)) return true;
+    const isDigit = (c: number) => c >= 48 && c <= 57;
+    // "INV2025031" must not match inside "INV20250310", nor "4711" inside "94711".
+    const before = i > 0 && isDigit(needle.charCodeAt(0)) && isDigit(haystack.charCodeAt(i - 1));
+    if (!before && !isDigit(haystack.charCodeAt(i + needle.length))) return true;
     from = i + 1;
   }
 }
 
 function fromInvoices(
   invoices: readonly IssuedInvoice[],
-  payments: readonly InvoicePayment[],
+  payments: readonly { readonly id: string; readonly date: CalendarDate }[],
   texts: ReadonlyMap<string, string>,
   asOf: CalendarDate,
 ): { observed: ObservedDelay[]; openOverdue: number; longestOpen: number } {
@@ -229,13 +231,11 @@ export function estimatePaymentDelay(
     throw new EngineError('INVALID_ARGUMENT', `due day must be a day of the month 1–31, got ${options.dueDay}`);
   }
   const minObservations = options.minObservations ?? DEFAULT_MIN_OBSERVATIONS;
-  const byId = new Map(entries.map((e) => [e.id, e]));
-  const payments = findInvoicePayments(entries).filter((p) =>
-    matchesCounterparty(p, byId.get(p.id), options.counterparty),
-  );
-  const texts = new Map(
-    payments.map((p) => [p.id, compact(`${byId.get(p.id)?.description ?? ''} ${p.counterparty ?? ''}`)]),
-  );
+  // Entered invoices are looked for in every incoming payment (a payer may write only the
+  // number); the monthly method uses the invoice-like ones.
+  const inflows = entries.filter((e) => e.amount > 0 && matchesCounterparty(e, options.counterparty));
+  const payments = findInvoicePayments(inflows);
+  const texts = new Map(inflows.map((e) => [e.id, compact(`${e.description} ${e.counterparty ?? ''}`)]));
   const asOf = options.asOf ?? entries.reduce((m, e) => (e.date > m ? e.date : m), '0000-01-01');
   const who = options.counterparty ? ` from "${options.counterparty}"` : '';
   const learned = (
@@ -258,7 +258,7 @@ export function estimatePaymentDelay(
   };
   let tried = '';
   if (options.invoices && options.invoices.length > 0) {
-    const r = fromInvoices(options.invoices, payments, texts, asOf);
+    const r = fromInvoices(options.invoices, inflows, texts, asOf);
     if (r.observed.length >= minObservations) {
       const open =
         r.openOverdue > 0

@@ -71,6 +71,28 @@ describe('estimatePaymentDelay', () => {
     expect(est.explanation).toMatch(/1 of 6 paid early/);
   });
 
+  it('finds an entered invoice number however the payer wrote it, but not inside a longer number', () => {
+    const invs = [0, 1, 2, 3].map((i) => ({
+      reference: `4711-${i}`,
+      issued: addDays('2025-01-01', 30 * i),
+      termsDays: 14,
+    }));
+    const pays = [
+      entry('2025-01-20', 1, 'Zahlung 4711 / 0 danke', 'Kunde'), // no invoice word: still matched by number
+      entry('2025-02-10', 1, 'ref 94711-1', 'Kunde'), // a longer number: not this invoice
+      entry('2025-02-20', 1, 'ref 4711.1', 'Kunde'),
+      entry('2025-03-20', 1, '4711 2', 'Kunde'),
+      entry('2025-04-30', 1, 'payment 47112 and 4711-3', 'Kunde'),
+    ];
+    const est = estimatePaymentDelay(pays, { invoices: invs, fallback: { min: 0, max: 0 } });
+    expect(est.observed.map((o) => [o.reference, o.paid, o.daysLate])).toEqual([
+      ['4711-0', '2025-01-20', 5],
+      ['4711-1', '2025-02-20', 6],
+      ['4711-2', '2025-03-20', 4], // issued 2 Mar, due 16 Mar
+      ['4711-3', '2025-04-30', 15], // issued 1 Apr, due 15 Apr
+    ]);
+  });
+
   it('says when overdue invoices are still open, since they would lengthen the estimate', () => {
     const open = { reference: 'INV-2025-099', issued: '2025-06-01', termsDays: 30 };
     const est = estimatePaymentDelay(paid, {
