@@ -1,26 +1,24 @@
 import { describe, expect, it } from 'vitest';
-import { addDays } from '../../engine/core/dates';
+import { addDays, daysBetween } from '../../engine/core/dates';
 import { projectRecurring } from '../../engine/forecast/recurringComponents';
 import { detectRecurringFlows } from '../../engine/recurring/detectRecurringFlows';
 import { buildHistory, type DailyFlow } from './histories';
 
-// A salary due on the 25th, paid a day early, on the day or a day late in a fixed rotation
-// (early in March 2025, late in April …): the timing spread is learned from the history.
+// A salary due on the 25th, paid a day early, on the day or a day late by a fixed rotation
+// of the months: the timing spread is learned from the history.
 const ROTATION = [0, -1, 0, 1, 0];
+const shiftOfMonth = (yearMonth: string) =>
+  ROTATION[(Number(yearMonth.slice(0, 4)) * 12 + Number(yearMonth.slice(5, 7))) % ROTATION.length];
 const salary: DailyFlow = (date) => {
-  for (const [k, offset] of ROTATION.entries()) (void k, void offset);
-  const base = new Date(`${date}T00:00:00Z`);
   for (const shift of [-1, 0, 1]) {
-    const nominal = new Date(base.getTime() - shift * 86_400_000).toISOString().slice(0, 10);
-    if (!nominal.endsWith('-25')) continue;
-    const month = Number(nominal.slice(0, 4)) * 12 + Number(nominal.slice(5, 7));
-    if (ROTATION[month % ROTATION.length] === shift) return 250_000;
+    const nominal = addDays(date, -shift);
+    if (nominal.endsWith('-25') && shiftOfMonth(nominal) === shift) return 250_000;
   }
   return 0;
 };
 
 function flowAsOf(asOf: string) {
-  const days = Math.round((Date.parse(asOf) - Date.parse('2025-01-01')) / 86_400_000) + 1;
+  const days = daysBetween('2025-01-01', asOf) + 1;
   const h = buildHistory({ days, flows: [{ description: 'Salary', counterparty: 'Employer BV', flow: salary }] });
   const flows = detectRecurringFlows(h.entries, { asOf: h.asOf });
   expect(flows).toHaveLength(1);
@@ -36,7 +34,7 @@ describe('projectRecurring around the as-of date', () => {
   it('does not count an occurrence twice when it was paid early, before the as-of date', () => {
     // A month whose salary came a day early: forecast from its 24th, the day it was paid.
     const early = ['2025-06', '2025-07', '2025-08', '2025-09', '2025-10', '2025-11'].find(
-      (m) => ROTATION[(Number(m.slice(0, 4)) * 12 + Number(m.slice(5, 7))) % ROTATION.length] === -1,
+      (m) => shiftOfMonth(m) === -1,
     )!;
     const asOf = `${early}-24`;
     const { h, flow } = flowAsOf(asOf);
@@ -51,7 +49,7 @@ describe('projectRecurring around the as-of date', () => {
 
   it('keeps an occurrence due tomorrow that could have come today, on the offsets still possible', () => {
     const onTime = ['2025-06', '2025-07', '2025-08', '2025-09', '2025-10', '2025-11'].find(
-      (m) => ROTATION[(Number(m.slice(0, 4)) * 12 + Number(m.slice(5, 7))) % ROTATION.length] !== -1,
+      (m) => shiftOfMonth(m) !== -1,
     )!;
     const asOf = `${onTime}-24`;
     const { h, flow } = flowAsOf(asOf);
