@@ -81,6 +81,8 @@ export class ImportSession {
   #message = $state<string | null>(null);
   #controller: AbortController | null = null;
   #nextKey = 1;
+  /** The workspace the files in the preview belong to. */
+  #workspaceId = $state<string | null>(null);
 
   #included = $derived(this.#files.filter((f) => !f.leftOut && !f.sameAsStored && !f.sameAsInBatch));
   #problemLines = $derived(
@@ -100,6 +102,10 @@ export class ImportSession {
   }
   get files(): readonly PendingFile[] {
     return this.#files;
+  }
+  /** The workspace the files being read or previewed belong to. */
+  get workspaceId(): string | null {
+    return this.#workspaceId;
   }
   /** Files that would be stored. */
   get included(): readonly PendingFile[] {
@@ -156,6 +162,8 @@ export class ImportSession {
       this.#message = 'Open or create a workspace first, then import its statements.';
       return;
     }
+    if (this.#files.length > 0 && this.#workspaceId !== this.#workspace.currentId) this.#reset();
+    this.#workspaceId = this.#workspace.currentId;
     this.#message = null;
     this.#storeError = null;
     this.#phase = 'reading';
@@ -342,6 +350,11 @@ export class ImportSession {
   async confirm(): Promise<void> {
     const preview = this.#preview;
     if (!this.canConfirm || !preview) return;
+    if (this.#workspaceId !== this.#workspace.currentId) {
+      this.#reset();
+      this.#message = 'Another workspace was opened meanwhile, so nothing was stored. Import the files again.';
+      return;
+    }
     this.#phase = 'storing';
     this.#storeError = null;
     this.#progress = { share: 0.95, label: 'Storing' };
