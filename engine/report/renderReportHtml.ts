@@ -119,13 +119,20 @@ function legend(): string {
   ].join('');
 }
 
+/** "1–7 Nov" within a month, "29 Nov – 5 Dec" across months. */
+function dayRange(from: CalendarDate, to: CalendarDate): string {
+  const a = formatShortDate(from);
+  const b = formatShortDate(to);
+  return from.slice(0, 7) === to.slice(0, 7) ? `${a.split(' ')[0]}–${b}` : `${a} – ${b}`;
+}
+
 function weeksSection(view: ThirteenWeekView): string {
   const c = view.currency;
   const amount = (v: number | null) => (v === null ? '–' : e(formatWhole(v, c)));
   const head = ['Week', 'Days', 'In', 'Out', 'Net', 'Expected close', 'P10', 'Median', 'P90', 'Below by then'];
   const rows = view.weeks.map((w) => [
     String(w.week),
-    e(`${formatShortDate(w.from)} – ${formatShortDate(w.to)}`),
+    e(dayRange(w.from, w.to)),
     amount(w.expectedInflow),
     amount(w.expectedOutflow),
     amount(w.expectedNet),

@@ -23,7 +23,8 @@ svg.fan text { fill: var(--ink); }
 table { border-collapse: collapse; width: 100%; margin: 0.5rem 0; font-size: 0.86rem; }
 th, td { padding: 0.25rem 0.4rem; border-bottom: 1px solid var(--rule); text-align: left; vertical-align: top; }
 th { font-weight: 600; background: #f4f6f8; }
-td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
+td.num { white-space: nowrap; }
 #weeks td:nth-child(2), #recurring td:nth-child(4) { white-space: nowrap; }
 #scenarios th { white-space: normal; text-align: right; }
 #scenarios th:first-child, #scenarios td:first-child { text-align: left; }
@@ -34,6 +35,8 @@ footer .caution { color: var(--ink); }
 @media print {
   @page { size: A4; margin: 16mm 14mm; }
   body { font-size: 10.5pt; }
+  table { font-size: 8.5pt; }
+  th, td { padding: 0.15rem 0.25rem; }
   main { max-width: none; padding: 0; }
   * { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
   h2 { break-after: avoid; }
