@@ -8,7 +8,8 @@
  * the same files. The worker keeps the last stored files and their ledger by revision, so
  * the window sends the files (a structured clone of every entry) only when the worker does
  * not have them: a call with `{ revision }` alone fails with code `STORED_FILES_NEEDED`,
- * and the caller repeats it with the files.
+ * and the caller repeats it with the files. The Outlook and Patterns methods live in
+ * ./analysisMethods.ts and are spread in here.
  *
  * Imports are relative, not `@engine/…`, so Vitest (which has no aliases) can load this file.
  */
@@ -21,6 +22,7 @@ import type { SeriesScope } from '../../../../engine/ledger/dailySeries';
 import type { Ledger } from '../../../../engine/ledger/types';
 import { historyFromLedger, type ForecastHistory } from '../../../../engine/forecast/history';
 import { detectRecurringFlows, type DetectedRecurringFlow } from '../../../../engine/recurring/detectRecurringFlows';
+import { analysisMethods } from './analysisMethods';
 import { contentHash } from './contentHash';
 import type { MethodContext } from './protocol';
 
@@ -82,6 +84,8 @@ function storedLedger(stored: StoredFiles, context: MethodContext): Ledger {
 }
 
 export const engineMethods = {
+  ...analysisMethods,
+
   /** Parses statement files; the caller decides whether to store them (all or nothing). */
   async parseStatements(params: { files: readonly ImportFileInput[] }, context: MethodContext): Promise<ParsedFile[]> {
     const results: ParsedFile[] = [];
