@@ -8,17 +8,16 @@
  * so the base and a scenario share the draws of everything the scenario leaves alone:
  * their difference is the scenario's change, not noise.
  */
-import { CAUTION } from '../core/caution';
 import { EngineError } from '../core/errors';
-import { addDays, fromDayNumber, toDayNumber } from '../core/dates';
 import { plannedComponents } from '../forecast/plannedComponents';
 import { projectRecurring } from '../forecast/recurringComponents';
-import { DEFAULT_PATHS, DEFAULT_SEED, type DailyOutlook, type ForecastResult } from '../forecast/runForecast';
+import { DEFAULT_PATHS, DEFAULT_SEED, type ForecastResult } from '../forecast/runForecast';
 import { EMPTY_PLAN, type Plan } from '../plan/plan';
 import { MAX_PATHS, MIN_PATHS, simulateBalances, type SimulatedPaths } from '../simulate/simulateBalances';
 import { summariseBalances } from '../simulate/summariseBalances';
-import { QUANTILE_LEVELS, type FlowComponent } from '../simulate/types';
+import type { FlowComponent } from '../simulate/types';
 import type { ForecastBasis } from './forecastBasis';
+import { forecastResultOf } from './forecastResultOf';
 
 /** The scenario's settings; the horizon and decisions come from the basis. */
 export interface ScenarioConfig {
@@ -72,16 +71,7 @@ export function forecastScenario(
   if (!Number.isFinite(threshold)) throw new EngineError('INVALID_ARGUMENT', 'threshold must be a finite amount');
   const plan = config.plan ?? EMPTY_PLAN;
   const { history, horizon, inflow, outflow } = basis;
-  const notes: string[] = [];
-  if (history.relative) {
-    notes.push('No statement states a balance, so balances are relative to the first day of the history.');
-  }
   const recurring = projectRecurring(basis.detected, basis.decisions, plan.recurring, history.asOf, horizon);
-  for (const change of recurring.unmatchedChanges) {
-    notes.push(
-      `The plan's change "${change.action} ${change.match}" matches no recurring flow that is projected; it was not applied.`,
-    );
-  }
   // The order matters: it is the order of runForecast, so drivers tie-break the same way.
   const components: FlowComponent[] = [...recurring.components];
   if (inflow.component) components.push(inflow.component);
@@ -90,50 +80,18 @@ export function forecastScenario(
   const startBalance = history.endBalance + plan.startBalanceChange;
   const sim = simulateBalances({ startBalance, horizon, paths, seed, threshold, components }, onProgress);
   const summary = summariseBalances(sim, threshold, components);
-  const first = toDayNumber(addDays(history.asOf, 1));
-  const daily: DailyOutlook[] = [];
-  for (let d = 0; d < horizon; d++) {
-    daily.push({
-      date: fromDayNumber(first + d),
-      mean: summary.mean[d] as number,
-      quantiles: QUANTILE_LEVELS.map((_, k) => (summary.quantiles[k] as Float64Array)[d] as number),
-      pBelow: summary.pBelow[d] as number,
-      pCrossed: summary.pCrossed[d] as number,
-    });
-  }
-  const dayToDate = (d: number | null) => (d === null ? null : fromDayNumber(first + d));
-  const result: ForecastResult = {
-    asOf: history.asOf,
-    currency: history.currency,
-    horizonDays: horizon,
+  const result = forecastResultOf({
+    history,
+    summary,
     paths,
     seed,
     threshold,
     startBalance,
-    relativeBalance: history.relative,
-    historyStart: history.start,
-    daily,
-    shortfall: {
-      probability: summary.pCrossed[horizon - 1] as number,
-      standardError: summary.standardError,
-      firstCrossing: {
-        p10: dayToDate(summary.firstCrossing.p10),
-        p50: dayToDate(summary.firstCrossing.p50),
-        p90: dayToDate(summary.firstCrossing.p90),
-      },
-      drivers: summary.drivers.map((d) => ({ key: d.key, label: d.label, amount: d.difference })),
-    },
-    recurring: recurring.projected,
-    recurringSkipped: recurring.skipped,
     detected: basis.detected,
-    model: { inflow: inflow.report, outflow: outflow.report },
+    recurring,
+    inflow,
+    outflow,
     planItems: plan.items.length,
-    notes: [
-      ...notes,
-      ...inflow.report.notes.map((n) => `Inflows: ${n}`),
-      ...outflow.report.notes.map((n) => `Outflows: ${n}`),
-    ],
-    caution: CAUTION,
-  };
+  });
   return { result, sim, components };
 }
