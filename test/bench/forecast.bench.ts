@@ -26,26 +26,47 @@ import { benchHistory, median } from './_forecastData';
 
 const gc = (globalThis as { gc?: () => void }).gc;
 
-function timed<T>(run: () => T): { ms: number; value: T } {
+/** Wall time and CPU time (user + system) of this process: on a shared machine the CPU time shows the work. */
+function timed<T>(run: () => T): { ms: number; cpu: number; value: T } {
   const start = performance.now();
+  const cpu = process.cpuUsage();
   const value = run();
-  return { ms: performance.now() - start, value };
+  const used = process.cpuUsage(cpu);
+  return { ms: performance.now() - start, cpu: (used.user + used.system) / 1000, value };
 }
 
-function report(label: string, runs: readonly number[], target?: number): void {
-  const [first, ...warm] = runs;
-  const w = warm.length ? median(warm) : (first as number);
+type Run = { ms: number; cpu: number };
+
+function report(label: string, runs: readonly Run[], target?: number): void {
+  const [first, ...warm] = runs as [Run, ...Run[]];
+  const w = warm.length ? warm : [first];
   console.log(
-    `${label.padEnd(64)} first ${(first as number).toFixed(0).padStart(6)} ms   warm median ${w.toFixed(0).padStart(6)} ms` +
-      (target !== undefined ? `   (target < ${target} ms)` : ''),
+    `${label.padEnd(66)} first ${first.ms.toFixed(0).padStart(5)} ms (cpu ${first.cpu.toFixed(0).padStart(5)})` +
+      `   warm median ${median(w.map((r) => r.ms))
+        .toFixed(0)
+        .padStart(5)} ms (cpu ${median(w.map((r) => r.cpu))
+        .toFixed(0)
+        .padStart(5)})` +
+      (target !== undefined ? `   target < ${target} ms` : ''),
   );
 }
+
+const load = (): string => {
+  try {
+    return `load average ${readFileSync('/proc/loadavg', 'utf8').split(' ').slice(0, 3).join(' ')}`;
+  } catch {
+    return 'load average unknown';
+  }
+};
+console.log(
+  `${load()} (wall times include waiting for the CPU on a busy machine; cpu = this process's user + system time)`,
+);
 
 // (a) -----------------------------------------------------------------------------------
 {
   const history = benchHistory();
   const forecastStart = addDays(history.asOf, 1);
-  const parts: Record<string, number[]> = { detect: [], decompose: [], inflow: [], outflow: [], total: [] };
+  const parts: Record<string, Run[]> = { detect: [], decompose: [], inflow: [], outflow: [], total: [] };
   let methods = '';
   for (let run = 0; run < 6; run++) {
     const total = timed(() => {
@@ -57,13 +78,13 @@ function report(label: string, runs: readonly number[], target?: number): void {
       });
       const inflow = timed(() => modelResidualFlow(residual.inflow, history.start, 'inflow', forecastStart, 90));
       const outflow = timed(() => modelResidualFlow(residual.outflow, history.start, 'outflow', forecastStart, 90));
-      parts.detect!.push(detect.ms);
-      parts.decompose!.push(decompose.ms);
-      parts.inflow!.push(inflow.ms);
-      parts.outflow!.push(outflow.ms);
+      parts.detect!.push(detect);
+      parts.decompose!.push(decompose);
+      parts.inflow!.push(inflow);
+      parts.outflow!.push(outflow);
       methods = `inflow ${inflow.value.report.method} [${inflow.value.report.model}], outflow ${outflow.value.report.method} [${outflow.value.report.model}], ${detect.value.length} recurring flows`;
     });
-    parts.total!.push(total.ms);
+    parts.total!.push(total);
   }
   console.log(`(a) five years of daily data (${history.entries.length} entries); ${methods}`);
   report('  recurring detection', parts.detect!);
@@ -128,14 +149,14 @@ function report(label: string, runs: readonly number[], target?: number): void {
     sizes: [60_000, 85_000, 120_000, 150_000, 180_000],
   });
   const input = { startBalance: 1_500_000, horizon, paths, seed: 7, threshold: 0, components };
-  const times: number[] = [];
+  const times: Run[] = [];
   let memory = '';
   for (let run = 0; run < 4; run++) {
     gc?.();
     const before = process.memoryUsage();
     const t = timed(() => summariseBalances(simulateBalances(input), 0, components));
     const after = process.memoryUsage();
-    times.push(t.ms);
+    times.push(t);
     if (run === 0) {
       const mb = (b: number) => (b / 1048576).toFixed(0);
       memory =
@@ -159,11 +180,11 @@ function report(label: string, runs: readonly number[], target?: number): void {
       result: importStatement(new Uint8Array(readFileSync(join(dir, f))), { fileName: f }) as ImportResult,
     }));
   const history = historyFromLedger(buildLedger(files));
-  const times: number[] = [];
+  const times: Run[] = [];
   let summary = '';
   for (let run = 0; run < 4; run++) {
     const t = timed(() => runForecast(history, { horizon: 90, paths: 5000, seed: 7 }));
-    times.push(t.ms);
+    times.push(t);
     summary = `shortfall ${t.value.shortfall.probability}, inflow ${t.value.model.inflow.method}, outflow ${t.value.model.outflow.method}`;
   }
   console.log(

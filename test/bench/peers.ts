@@ -61,7 +61,7 @@ function ours(): { point: Float64Array; model: string } {
 }
 
 const ourTimes: number[] = [];
-let ourForecast = { point: new Float64Array(0), model: '' };
+let ourForecast: { point: Float64Array; model: string } = { point: new Float64Array(0), model: '' };
 for (let run = 0; run < RUNS; run++) {
   const start = performance.now();
   ourForecast = ours();
