@@ -76,12 +76,17 @@ function directionText(name: string, p: DirectionPatterns, money: (x: number) =>
  * The text summary of a history's patterns.
  * @example decomposeText(decomposeHistory(history), 'account NL21HRBL0412345670 (EUR)')
  */
-export function decomposeText(patterns: HistoryPatterns, scopeDescription: string): string {
+export function decomposeText(
+  patterns: HistoryPatterns,
+  scopeDescription: string,
+  notes: readonly string[] = [],
+): string {
   const e = exponentOf(patterns.currency);
   const money = (minor: number) => formatMinor(Math.round(minor), e);
   const c = patterns.currency;
   const out: string[] = [];
   out.push(`Patterns of ${scopeDescription} from ${patterns.start} to ${patterns.asOf}.`);
+  for (const n of notes) out.push(n);
   out.push('');
   if (patterns.recurring.length) {
     out.push(

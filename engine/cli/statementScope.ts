@@ -37,6 +37,8 @@ export interface StatementScope {
   /** First and last day the statements of the scope cover. */
   readonly firstDate: CalendarDate;
   readonly lastDate: CalendarDate;
+  /** Sentences for the report, e.g. an account whose statements end before the others'. */
+  readonly notes: readonly string[];
 }
 
 /**
@@ -81,7 +83,7 @@ function matchAccounts(accounts: readonly LedgerAccount[], text: string): Ledger
 export function chooseScope(
   ledger: Ledger,
   options: ScopeOptions,
-): Checked<Omit<StatementScope, 'firstDate' | 'lastDate'>> {
+): Checked<Omit<StatementScope, 'firstDate' | 'lastDate' | 'notes'>> {
   const all = ledger.accounts;
   const listed = all.map((a) => `${accountName(a)} (${a.currency})`).join(', ');
   if (all.length === 0) return { ok: false, problems: ['ebbline: the statements hold no account to work with'] };
@@ -163,10 +165,17 @@ export async function loadScope(
     throw error;
   }
   if (set.days === 0) return { ok: false, problems: ['ebbline: the chosen accounts have no entries'] };
-  return {
-    ok: true,
-    value: { ...chosen.value, firstDate: set.start, lastDate: addDays(set.start, set.days - 1) },
-  };
+  const lastDate = addDays(set.start, set.days - 1);
+  const notes: string[] = [];
+  for (const account of chosen.value.accounts) {
+    const end = ledger.reconciliation.find((r) => r.accountId === account.id)?.lastDate ?? null;
+    if (end !== null && end < lastDate) {
+      notes.push(
+        `The statements of account ${accountName(account)} end on ${end}, before the others' (${lastDate}); its days after that count as days without entries.`,
+      );
+    }
+  }
+  return { ok: true, value: { ...chosen.value, firstDate: set.start, lastDate, notes } };
 }
 
 /**

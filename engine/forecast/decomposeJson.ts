@@ -103,12 +103,14 @@ function directionJson(p: DirectionPatterns, start: string, money: (x: number) =
  * The JSON-ready object of a history's patterns. `treatment` of a recurring flow says what
  * a forecast does with it: 'projected' by its schedule, 'ended', 'dismissed', or
  * 'unconfirmed' (kept with the other flows until confirmed); the components describe the
- * flows left once the projected and ended ones are taken out.
+ * flows left once the projected and ended ones are taken out. `notes` are the caller's
+ * sentences about the whole history (e.g. an account whose statements end early).
  * @example JSON.stringify(decomposeToJson(decomposeHistory(history)), null, 2)
  */
 export function decomposeToJson(
   patterns: HistoryPatterns,
   decisions: readonly RecurringDecision[] = [],
+  notes: readonly string[] = [],
 ): Record<string, unknown> {
   const byKey = new Map(decisions.map((d) => [d.key, d]));
   const e = exponentOf(patterns.currency);
@@ -132,6 +134,7 @@ export function decomposeToJson(
       lastDate: f.lastDate,
       treatment: recurringSelection(f, byKey.get(f.key)),
     })),
+    notes: [...notes],
     caution: CAUTION,
   };
 }

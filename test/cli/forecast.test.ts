@@ -156,18 +156,19 @@ describe('ebbline forecast: scope, as-of and plan', () => {
     );
   });
 
-  it('combines the accounts of one currency by default', async () => {
-    const two = { ...files, 'second.xml': account('NL00SECOND', 'EUR', 120, 100_000, 3) };
+  it('combines the accounts of one currency by default, noting an account whose statements end early', async () => {
+    const two = { ...files, 'second.xml': account('NL00SECOND', 'EUR', 100, 100_000, 3) };
     const out = await run(
       ['forecast', 'studio.xml', 'second.xml', '--paths', '200', '--horizon', '7', '--format', 'json'],
       two,
     );
     expect(out.exitCode).toBe(0);
-    expect(JSON.parse(out.stdout).startBalance).toBeCloseTo(
-      (((two['studio.xml'].statements[0]!.balances[1]!.amount as number) +
-        (two['second.xml'].statements[0]!.balances[1]!.amount as number)) as number) / 100,
-      2,
-    );
+    const doc = JSON.parse(out.stdout);
+    const closing = (s: Stored) => s.statements[0]!.balances[1]!.amount as number;
+    expect(doc.startBalance).toBeCloseTo((closing(two['studio.xml']) + closing(two['second.xml'])) / 100, 2);
+    expect(doc.model.notes).toEqual([
+      "The statements of account NL00SECOND end on 2026-04-10, before the others' (2026-04-30); its days after that count as days without entries.",
+    ]);
   });
 
   it('defaults --as-of to the last statement date and refuses dates outside the statements', async () => {
@@ -300,8 +301,10 @@ describe('ebbline decompose', () => {
       'inflow',
       'outflow',
       'recurring',
+      'notes',
       'caution',
     ]);
+    expect(doc.notes).toEqual([]);
     expect(doc.schema).toBe('ebbline.decompose/1');
     for (const direction of [doc.inflow, doc.outflow]) {
       expect(direction.components.start).toBe('2026-01-01');

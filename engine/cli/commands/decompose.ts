@@ -44,8 +44,8 @@ export const decomposeCommand: CliCommand = {
     }
     const stdout =
       args.options.format === 'json'
-        ? JSON.stringify(decomposeToJson(patterns), null, 2) + '\n'
-        : decomposeText(patterns, loaded.value.description);
+        ? JSON.stringify(decomposeToJson(patterns, [], loaded.value.notes), null, 2) + '\n'
+        : decomposeText(patterns, loaded.value.description, loaded.value.notes);
     return { exitCode: 0, stdout, stderr: '', writes: [] };
   },
 };

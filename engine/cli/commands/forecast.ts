@@ -141,6 +141,7 @@ export const forecastCommand: CliCommand = {
     let result;
     try {
       result = runForecast(history.value, { horizon, paths, seed, threshold, plan });
+      if (scope.notes.length > 0) result = { ...result, notes: [...scope.notes, ...result.notes] };
     } catch (error) {
       if (error instanceof EngineError && error.code === 'NOT_ENOUGH_DATA') {
         return refused([
