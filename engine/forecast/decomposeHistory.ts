@@ -11,7 +11,7 @@ import { seasonalStrength } from '../stats/seasonalStrength';
 import { seriesDiagnostics as runDiagnostics, type SeriesDiagnostics } from '../stats/diagnostics';
 import type { ForecastHistory } from './history';
 import { explainedEntryIds, type RecurringDecision } from './recurringComponents';
-import { residualSeries } from './runForecast';
+import { residualSeries } from './residualSeries';
 
 export interface DirectionPatterns {
   readonly direction: 'inflow' | 'outflow';

@@ -6,18 +6,16 @@
  * (engine/scenario/forecastScenario.ts), and the models are fitted once instead of once per
  * scenario.
  *
- * This follows runForecast (engine/forecast/runForecast.ts) step by step and gives the same
- * numbers for the same inputs and seed; test/scenario/forecastScenario.test.ts holds the two
- * side by side so they cannot drift apart unnoticed.
+ * runForecast (engine/forecast/runForecast.ts) is this basis plus one scenario, so the
+ * base forecast and the scenarios compared with it come from the same steps.
  */
-import { addDays, toDayNumber } from '../core/dates';
-import { EngineError } from '../core/errors';
+import { addDays } from '../core/dates';
+import { checkHistoryLength, checkHorizon, DEFAULT_HORIZON } from '../forecast/forecastSettings';
 import type { ForecastHistory } from '../forecast/history';
-import type { RecurringDecision } from '../forecast/recurringComponents';
+import { explainedEntryIds, type RecurringDecision } from '../forecast/recurringComponents';
 import { modelResidualFlow, type ResidualFlowModel } from '../forecast/residualFlows';
-import { DEFAULT_HORIZON, MIN_HISTORY_DAYS, residualSeries } from '../forecast/runForecast';
+import { residualSeries } from '../forecast/residualSeries';
 import { detectRecurringFlows, type DetectedRecurringFlow } from '../recurring/detectRecurringFlows';
-import { MAX_HORIZON } from '../simulate/simulateBalances';
 
 /** What a basis is prepared from besides the history. */
 export interface ForecastBasisConfig {
@@ -53,20 +51,8 @@ export function prepareForecastBasis(
   config: ForecastBasisConfig = {},
   onProgress?: (share: number, label: string) => void,
 ): ForecastBasis {
-  const horizon = config.horizon ?? DEFAULT_HORIZON;
-  if (!Number.isInteger(horizon) || horizon < 1 || horizon > MAX_HORIZON) {
-    throw new EngineError(
-      'INVALID_ARGUMENT',
-      `horizon must be a whole number of days from 1 to ${MAX_HORIZON}, got ${horizon}`,
-    );
-  }
-  const historyDays = toDayNumber(history.asOf) - toDayNumber(history.start) + 1;
-  if (historyDays < MIN_HISTORY_DAYS) {
-    throw new EngineError(
-      'NOT_ENOUGH_DATA',
-      `a forecast needs at least ${MIN_HISTORY_DAYS} days of history, the statements cover ${historyDays}`,
-    );
-  }
+  const horizon = checkHorizon(config.horizon ?? DEFAULT_HORIZON);
+  checkHistoryLength(history);
   const decisions = config.decisions ?? [];
   onProgress?.(0.02, 'Finding recurring flows');
   const detected = detectRecurringFlows(
@@ -79,12 +65,10 @@ export function prepareForecastBasis(
     })),
     { asOf: history.asOf },
   );
-  // As in runForecast: entries of detected flows leave the residual history unless the
-  // user dismissed the flow. Plan changes (pause, scale) act on the projection only.
-  const dismissed = new Set(decisions.filter((d) => d.state === 'dismissed').map((d) => d.key));
-  const explained = new Set<string>();
-  for (const flow of detected) if (!dismissed.has(flow.key)) for (const id of flow.memberIds) explained.add(id);
-  const residual = residualSeries(history, explained);
+  // Entries of detected flows leave the residual history unless the user dismissed the
+  // flow or it is an unconfirmed low-confidence suggestion (explainedEntryIds). Plan changes
+  // (pause, scale) act on the projection only.
+  const residual = residualSeries(history, explainedEntryIds(detected, decisions));
   const forecastStart = addDays(history.asOf, 1);
   onProgress?.(0.1, 'Modelling other inflows');
   const inflow = modelResidualFlow(residual.inflow, history.start, 'inflow', forecastStart, horizon);

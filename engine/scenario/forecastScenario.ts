@@ -8,12 +8,12 @@
  * so the base and a scenario share the draws of everything the scenario leaves alone:
  * their difference is the scenario's change, not noise.
  */
-import { EngineError } from '../core/errors';
 import { plannedComponents } from '../forecast/plannedComponents';
 import { projectRecurring } from '../forecast/recurringComponents';
-import { DEFAULT_PATHS, DEFAULT_SEED, type ForecastResult } from '../forecast/runForecast';
+import { checkSimulationSettings, DEFAULT_PATHS, DEFAULT_SEED } from '../forecast/forecastSettings';
+import type { ForecastResult } from '../forecast/runForecast';
 import { EMPTY_PLAN, type Plan } from '../plan/plan';
-import { MAX_PATHS, MIN_PATHS, simulateBalances, type SimulatedPaths } from '../simulate/simulateBalances';
+import { simulateBalances, type SimulatedPaths } from '../simulate/simulateBalances';
 import { summariseBalances } from '../simulate/summariseBalances';
 import type { FlowComponent } from '../simulate/types';
 import type { ForecastBasis } from './forecastBasis';
@@ -59,16 +59,7 @@ export function forecastScenario(
   const paths = config.paths ?? DEFAULT_PATHS;
   const seed = config.seed ?? DEFAULT_SEED;
   const threshold = config.threshold ?? 0;
-  if (!Number.isInteger(paths) || paths < MIN_PATHS || paths > MAX_PATHS) {
-    throw new EngineError(
-      'INVALID_ARGUMENT',
-      `paths must be a whole number from ${MIN_PATHS} to ${MAX_PATHS}, got ${paths}`,
-    );
-  }
-  if (!Number.isInteger(seed) || seed < 0 || seed > 0xffffffff) {
-    throw new EngineError('INVALID_ARGUMENT', `seed must be a whole number from 0 to 4294967295, got ${seed}`);
-  }
-  if (!Number.isFinite(threshold)) throw new EngineError('INVALID_ARGUMENT', 'threshold must be a finite amount');
+  checkSimulationSettings(paths, seed, threshold);
   const plan = config.plan ?? EMPTY_PLAN;
   const { history, horizon, inflow, outflow } = basis;
   const recurring = projectRecurring(basis.detected, basis.decisions, plan.recurring, history.asOf, horizon);
