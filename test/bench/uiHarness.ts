@@ -154,7 +154,13 @@ export async function startHarness(): Promise<Harness> {
     plugins: [svelte({ configFile: false, preprocess: vitePreprocess() })],
     worker: { format: 'es' as const },
     resolve: { alias: { '@engine': `${root}engine` } },
-    build: { outDir: `${harnessDir}/dist`, emptyOutDir: true, target: 'es2022' },
+    // UI_BENCH_NO_MINIFY=1 keeps names readable in CPU profiles of the harness page.
+    build: {
+      outDir: `${harnessDir}/dist`,
+      emptyOutDir: true,
+      target: 'es2022',
+      minify: !process.env.UI_BENCH_NO_MINIFY,
+    },
   };
   await build(shared);
   const port = await freePort();

@@ -151,16 +151,22 @@ export function shortfallHeadline(
  * backwards from the as-of balance: the balance at the end of day d is the as-of balance
  * minus every entry booked after d.
  * @example recentBalances(history, 60).at(-1) // { date: history.asOf, balance: history.endBalance }
- * Complexity: O(entries + days).
+ * Complexity: O(days + entries in those days); `history.entries` must be by date, as
+ * ForecastHistory promises.
  */
 export function recentBalances(history: ForecastHistory, days: number): BalancePoint[] {
   const end = toDayNumber(history.asOf);
   const first = Math.max(toDayNumber(history.start), end - days + 1);
   const count = end - first + 1;
   if (count <= 0) return [];
-  // net[i]: sum of entries on day first + i
+  // net[i]: sum of entries on day first + i. Entries are by date, so only the last ones
+  // are read (YYYY-MM-DD compares as text): a history of 100,000 entries costs its last weeks.
   const net = new Float64Array(count);
-  for (const e of history.entries) {
+  const firstDate = addDays(history.asOf, 1 - count);
+  const entries = history.entries;
+  for (let k = entries.length - 1; k >= 0; k--) {
+    const e = entries[k] as (typeof entries)[number];
+    if (e.date < firstDate) break;
     const i = toDayNumber(e.date) - first;
     if (i >= 0 && i < count) net[i] = (net[i] as number) + e.amount;
   }

@@ -1,12 +1,11 @@
 /**
  * The one way Ebbline mounts a Chart.js chart: `<canvas {@attach chart(() => config)}>`.
  *
- * The attachment creates the chart soon after the canvas is mounted (one chart per
- * animation frame, so a screen of charts never blocks the window in one long task),
- * updates the same chart in place (no animation) whenever the config the getter returns
- * changes — a config built from the reactive palette (./cssPalette.svelte.ts) changes when
- * the theme does, so the chart redraws in the new colours — and destroys the chart when
- * the canvas is removed.
+ * The attachment creates the chart right after the canvas is mounted, updates the same
+ * chart in place (no animation) whenever the config the getter returns changes — a config
+ * built from the reactive palette (./cssPalette.svelte.ts) changes when the theme does, so
+ * the chart redraws in the new colours — and destroys the chart when the canvas is
+ * removed. Each creation and update runs in a task of its own (see inATaskOfItsOwn).
  *
  * Why a getter and not `chart(config)`: Svelte re-runs an attachment expression whose
  * value changes and tears the old attachment down, which would destroy and re-create the
@@ -16,37 +15,35 @@
  */
 import type { Attachment } from 'svelte/attachments';
 import type { Chart as ChartInstance, ChartConfiguration, ChartType, DefaultDataPoint } from 'chart.js';
-import { untrack } from 'svelte';
 import { registeredChart } from './registerCharts';
 
-const waiting: (() => void)[] = [];
-let frameRequested = false;
+const jobs: (() => void)[] = [];
+let channel: MessageChannel | null = null;
+let pumping = false;
 
-function createNext(): void {
-  const job = waiting.shift();
-  job?.();
-  if (waiting.length > 0) requestAnimationFrame(createNext);
-  else frameRequested = false;
+function runNext(): void {
+  jobs.shift()?.();
+  if (jobs.length > 0) channel?.port2.postMessage(null);
+  else pumping = false;
 }
 
 /**
- * Runs `create` in a coming animation frame, one chart per frame: creating a chart measures
- * fonts and lays out its axes (tens of milliseconds), so a screen with several charts
- * would otherwise block the window for one long task.
- * @returns a function that cancels the creation if it has not run yet.
+ * Runs `job` in a task of its own, after the tasks already waiting: one chart is created or
+ * updated per task, so mounting a screen of charts, or a new forecast that redraws two
+ * charts, never holds the window in one long task. (A message channel, not setTimeout,
+ * which is clamped to 4 ms when nested; not requestAnimationFrame, whose callbacks run in
+ * the same task as the rendering they precede.)
  */
-function inItsOwnFrame(create: () => void): () => void {
-  let cancelled = false;
-  waiting.push(() => {
-    if (!cancelled) create();
-  });
-  if (!frameRequested) {
-    frameRequested = true;
-    requestAnimationFrame(createNext);
+function inATaskOfItsOwn(job: () => void): void {
+  if (!channel) {
+    channel = new MessageChannel();
+    channel.port1.onmessage = runNext;
   }
-  return () => {
-    cancelled = true;
-  };
+  jobs.push(job);
+  if (!pumping) {
+    pumping = true;
+    channel.port2.postMessage(null);
+  }
 }
 
 /**
@@ -60,20 +57,29 @@ export function chart<TType extends ChartType, TData = DefaultDataPoint<TType>, 
   return (canvas) => {
     const Chart = registeredChart();
     let instance: ChartInstance<TType, TData, TLabel> | null = null;
+    let removed = false;
+    /** The newest config not drawn yet; several changes before the chart's turn draw once. */
+    let pending: ChartConfiguration<TType, TData, TLabel> | null = null;
+    const draw = () => {
+      const config = pending;
+      pending = null;
+      if (removed || !config) return;
+      if (!instance) {
+        instance = new Chart(canvas, config);
+        return;
+      }
+      instance.data = config.data;
+      if (config.options) instance.options = config.options;
+      instance.update('none');
+    };
     $effect(() => {
       const config = getConfig();
-      untrack(() => {
-        if (!instance) return; // created in its own frame, with the config current then
-        instance.data = config.data;
-        if (config.options) instance.options = config.options;
-        instance.update('none');
-      });
-    });
-    const cancel = inItsOwnFrame(() => {
-      instance = new Chart(canvas, untrack(getConfig));
+      const queued = pending !== null;
+      pending = config;
+      if (!queued) inATaskOfItsOwn(draw);
     });
     return () => {
-      cancel();
+      removed = true;
       instance?.destroy();
       instance = null;
     };

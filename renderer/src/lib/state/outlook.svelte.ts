@@ -35,7 +35,7 @@ export const DEBOUNCE_MS = 400;
 /** A run shorter than this shows no progress bar (no flicker on quick re-forecasts). */
 const PROGRESS_DELAY_MS = 150;
 
-type AnalysisMethod = 'forecast' | 'residualModel';
+type AnalysisMethod = 'forecast' | 'residualInputs' | 'fitResidualSeries';
 
 /** What the state needs from an engine client (injectable for tests and benches). */
 export interface AnalysisCaller {
@@ -73,7 +73,7 @@ interface Lane {
 
 export class OutlookState {
   readonly #primary: Lane;
-  readonly #helper: Lane | null;
+  readonly #helper: AnalysisCaller | null;
 
   #horizon = $state(DEFAULT_HORIZON);
   #paths = $state<number>(DEFAULT_PATHS);
@@ -115,8 +115,7 @@ export class OutlookState {
   constructor(engine?: AnalysisCaller, helper?: AnalysisCaller | null) {
     const shared = engine ? null : outlookEngines();
     this.#primary = { engine: engine ?? (shared as { primary: EngineClient }).primary, sent: null };
-    const second = helper === undefined ? (shared?.helper ?? null) : helper;
-    this.#helper = second ? { engine: second, sent: null } : null;
+    this.#helper = helper === undefined ? (shared?.helper ?? null) : helper;
   }
 
   get horizon(): number {
@@ -292,21 +291,32 @@ export class OutlookState {
     }
   }
 
-  /** Fits both directions' residual models at once, in the two workers. */
-  async #fitModels(helper: Lane, signal: AbortSignal): Promise<ResidualModels> {
-    const decisions = this.#decisions;
+  /**
+   * Fits both directions' residual models at once: the first worker finds the recurring
+   * flows and returns what they leave (two daily series), then each worker runs one
+   * direction's backtest. Only the first worker ever receives the history.
+   */
+  async #fitModels(helper: AnalysisCaller, signal: AbortSignal): Promise<ResidualModels> {
+    this.#label = 'Finding recurring flows';
+    this.#share = 0.03;
+    const inputs = await this.#call(this.#primary, 'residualInputs', { decisions: this.#decisions }, { signal });
+    this.#label = 'Comparing models for money in and money out';
+    this.#share = 0.1;
     let done = 0;
-    this.#label = 'Finding recurring flows and comparing models for money in and out';
-    this.#share = 0.05;
     const finished = <T>(value: T): T => {
       done++;
-      this.#share = 0.05 + 0.3 * done;
+      this.#share = 0.1 + 0.3 * done;
       return value;
     };
-    const [inflow, outflow] = await Promise.all([
-      this.#call(this.#primary, 'residualModel', { decisions, direction: 'inflow' }, { signal }).then(finished),
-      this.#call(helper, 'residualModel', { decisions, direction: 'outflow' }, { signal }).then(finished),
-    ]);
+    const fit = (engine: AnalysisCaller, direction: 'inflow' | 'outflow') =>
+      engine
+        .call(
+          'fitResidualSeries',
+          { series: inputs[direction], start: inputs.start, direction, forecastStart: inputs.forecastStart },
+          { signal },
+        )
+        .then(finished);
+    const [inflow, outflow] = await Promise.all([fit(this.#primary.engine, 'inflow'), fit(helper, 'outflow')]);
     return {
       fitHorizon: Math.min(inflow.fitHorizon, outflow.fitHorizon),
       inflow: inflow.model,
@@ -375,7 +385,6 @@ export class OutlookState {
         if (!this.#supersede) this.#status = 'cancelled';
         // Cancelling replaced both workers: the models they kept are gone with them.
         this.#primary.sent = null;
-        if (this.#helper) this.#helper.sent = null;
       } else {
         this.#status = 'error';
         this.#error = e instanceof Error ? e.message : String(e);

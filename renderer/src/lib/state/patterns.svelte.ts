@@ -20,6 +20,14 @@ export type Direction = 'inflow' | 'outflow';
 export type Subject = 'series' | 'leftovers';
 export type PatternsStatus = 'idle' | 'running' | 'done' | 'cancelled' | 'error';
 
+let sharedEngine: EngineClient | null = null;
+
+/** One worker for every Patterns screen (it starts on first use and keeps what it computed). */
+function patternsEngine(): EngineClient {
+  sharedEngine ??= new EngineClient();
+  return sharedEngine;
+}
+
 export class PatternsState {
   readonly #engine: PatternsCaller;
   #result = $state.raw<HistoryPatterns | null>(null);
@@ -35,7 +43,8 @@ export class PatternsState {
   #controller: AbortController | null = null;
   #run = 0;
 
-  constructor(engine: PatternsCaller = new EngineClient()) {
+  /** @param engine runs the decomposition (default: the Patterns screens' shared worker). */
+  constructor(engine: PatternsCaller = patternsEngine()) {
     this.#engine = engine;
   }
 

@@ -12,8 +12,8 @@
  *   years of history — per history and set of entries the recurring flows explain. They are fitted once for the
  *   longest horizon the screen offers (MODEL_HORIZON): their seasonal projection is
  *   computed day by day, so its first `h` days do not depend on how far it reaches. The
- *   caller may also fit the two directions in two workers at once (`residualModel`) and
- *   hand both models to `forecast`;
+ *   caller may also fit the two directions in two workers at once (`residualInputs`, then
+ *   `fitResidualSeries` in each) and hand both models to `forecast`;
  * - the last simulation: a new threshold alone changes only which paths cross it, so the
  *   paths are not simulated again, only summarised.
  * A new horizon or number of paths then costs only the simulation.
@@ -156,7 +156,7 @@ interface KeptSimulation {
 
 const histories = new LruCache<KeptHistory>(2);
 const detections = new LruCache<readonly DetectedRecurringFlow[]>(CACHE_SIZE);
-const models = new LruCache<FittedResidualModel>(2 * CACHE_SIZE);
+const models = new LruCache<FittedResidualModel>(4 * CACHE_SIZE);
 const patternsCache = new LruCache<HistoryPatterns>(CACHE_SIZE);
 let lastSimulation: KeptSimulation | null = null;
 
@@ -228,38 +228,104 @@ function modelKey(fingerprint: string, explained: ReadonlySet<string>, direction
   return `${fingerprint}|${explained.size}:${hashText(ids)}|${direction}`;
 }
 
+/** The daily series the residual models are fitted to (runForecast's residual step). */
+export interface ResidualInputs {
+  /** First day of the series (the history's start). */
+  readonly start: string;
+  /** First forecast day (the day after the as-of date). */
+  readonly forecastStart: string;
+  /** Daily magnitudes of the money in and out that no recurring flow explains. */
+  readonly inflow: Float64Array;
+  readonly outflow: Float64Array;
+}
+
+function residualInputsOf(
+  kept: KeptHistory,
+  decisions: readonly RecurringDecision[],
+  onProgress?: (share: number, label: string) => void,
+): ResidualInputs & { readonly explained: ReadonlySet<string> } {
+  const explained = explainedEntryIds(detectedFlows(kept, onProgress), decisions);
+  const residual = residualSeries(kept.history, explained);
+  return {
+    start: kept.history.start,
+    forecastStart: addDays(kept.history.asOf, 1),
+    inflow: residual.inflow,
+    outflow: residual.outflow,
+    explained,
+  };
+}
+
 /**
- * One direction's residual model of a history (runForecast's step 2), kept for later calls.
+ * Fits one direction's residual model (runForecast's step 2) to its daily series, kept for
+ * the next call with the same series (a screen that comes back asks again).
  * @param horizon the model serves horizons up to max(horizon, MODEL_HORIZON).
+ * @example fitResidualSeries(inputs.outflow, inputs.start, 'outflow', inputs.forecastStart).model.report.method
  */
-export function keptResidualModel(
+export function fitResidualSeries(
+  series: Float64Array,
+  start: string,
+  direction: 'inflow' | 'outflow',
+  forecastStart: string,
+  horizon: number = MODEL_HORIZON,
+  onProgress?: (share: number, label: string) => void,
+): FittedResidualModel {
+  const key = `series|${seriesHash(series)}|${start}|${forecastStart}|${direction}`;
+  const known = models.get(key);
+  if (known && known.fitHorizon >= horizon) return known;
+  const fitHorizon = Math.min(MAX_HORIZON, Math.max(horizon, MODEL_HORIZON));
+  onProgress?.(
+    direction === 'inflow' ? 0.1 : 0.35,
+    direction === 'inflow' ? 'Modelling other inflows' : 'Modelling other outflows',
+  );
+  const fitted = { fitHorizon, model: modelResidualFlow(series, start, direction, forecastStart, fitHorizon) };
+  models.set(key, fitted);
+  return fitted;
+}
+
+/** FNV-1a over the bytes of a series (its exact values), with its length. */
+function seriesHash(series: Float64Array): string {
+  const words = new Uint32Array(series.buffer, series.byteOffset, series.length * 2);
+  let h = 0x811c9dc5;
+  for (let i = 0; i < words.length; i++) h = Math.imul(h ^ (words[i] as number), 0x01000193);
+  return `${series.length}:${(h >>> 0).toString(16)}`;
+}
+
+/** One direction's residual model of a history, kept for later calls. */
+function keptResidualModel(
   kept: KeptHistory,
   decisions: readonly RecurringDecision[],
   direction: 'inflow' | 'outflow',
   horizon: number,
   onProgress?: (share: number, label: string) => void,
 ): FittedResidualModel {
-  const explained = explainedEntryIds(detectedFlows(kept, onProgress), decisions);
-  const key = modelKey(kept.fingerprint, explained, direction);
+  const inputs = residualInputsOf(kept, decisions, onProgress);
+  const key = modelKey(kept.fingerprint, inputs.explained, direction);
   const known = models.get(key);
   if (known && known.fitHorizon >= horizon) return known;
-  const { history } = kept;
-  const residual = residualSeries(history, explained);
-  const fitHorizon = Math.min(MAX_HORIZON, Math.max(horizon, MODEL_HORIZON));
-  onProgress?.(
-    direction === 'inflow' ? 0.1 : 0.35,
-    direction === 'inflow' ? 'Modelling other inflows' : 'Modelling other outflows',
-  );
-  const model = modelResidualFlow(
-    direction === 'inflow' ? residual.inflow : residual.outflow,
-    history.start,
-    direction,
-    addDays(history.asOf, 1),
-    fitHorizon,
-  );
-  const fitted = { fitHorizon, model };
+  const series = direction === 'inflow' ? inputs.inflow : inputs.outflow;
+  const fitted = fitResidualSeries(series, inputs.start, direction, inputs.forecastStart, horizon, onProgress);
   models.set(key, fitted);
   return fitted;
+}
+
+/**
+ * Recurring flows without the ids of the entries each one matched: the window shows flows,
+ * not their members, and on a large history the ids run to 100,000 strings that would be
+ * copied to the window and parsed there with every forecast.
+ */
+export function withoutMemberIds<T extends { readonly memberIds: readonly string[] }>(flows: readonly T[]): T[] {
+  return flows.map((f) => ({ ...f, memberIds: [] }));
+}
+
+/** A forecast result with its recurring flows without member ids (one copy per flow, as before). */
+function slimForecast(result: ForecastResult): ForecastResult {
+  const detected = withoutMemberIds(result.detected);
+  const byKey = new Map(detected.map((f) => [f.key, f]));
+  return {
+    ...result,
+    detected,
+    recurring: result.recurring.map((r) => ({ ...r, flow: byKey.get(r.flow.key) ?? { ...r.flow, memberIds: [] } })),
+  };
 }
 
 /** Keeps models fitted elsewhere (another worker) for a history, as if fitted here. */
@@ -457,7 +523,8 @@ export const analysisMethods = {
   /**
    * The Outlook's forecast (engine/forecast/runForecast.ts), models kept between calls.
    * `history` may be null when `historyKey` names a history sent before; `models` may carry
-   * residual models fitted by `residualModel` calls (in other workers).
+   * residual models fitted by `fitResidualSeries` (in other workers). The recurring flows
+   * come without their member ids (see withoutMemberIds).
    * @throws HistoryNotKeptError (code HISTORY_NOT_KEPT) when the named history is not kept.
    */
   async forecast(
@@ -465,29 +532,46 @@ export const analysisMethods = {
     context: AnalysisContext,
   ): Promise<ForecastResult> {
     const kept = resolveHistory(params);
-    return forecastWithKeptModels(kept.history, params.config, (share, label) => context.progress(share, label), {
-      fingerprint: kept.fingerprint,
-      ...(params.models ? { models: params.models } : {}),
-    });
+    const result = forecastWithKeptModels(
+      kept.history,
+      params.config,
+      (share, label) => context.progress(share, label),
+      {
+        fingerprint: kept.fingerprint,
+        ...(params.models ? { models: params.models } : {}),
+      },
+    );
+    return slimForecast(result);
+  },
+
+  /** The daily series the residual models are fitted to, so that another worker can fit one. */
+  async residualInputs(
+    params: HistoryReference & { decisions: readonly RecurringDecision[] },
+    context: AnalysisContext,
+  ): Promise<ResidualInputs> {
+    const inputs = residualInputsOf(resolveHistory(params), params.decisions, (s, l) => context.progress(s, l));
+    return { start: inputs.start, forecastStart: inputs.forecastStart, inflow: inputs.inflow, outflow: inputs.outflow };
   },
 
   /**
-   * One direction's residual model (recurring flows found, the rest modelled by backtest),
-   * for fitting money in and money out in two workers at once.
+   * One direction's residual model from its daily series. The backtests are the slow part
+   * of a first forecast, so money in and money out are fitted in two workers at once.
    */
-  async residualModel(
-    params: HistoryReference & {
-      decisions: readonly RecurringDecision[];
+  async fitResidualSeries(
+    params: {
+      series: Float64Array;
+      start: string;
       direction: 'inflow' | 'outflow';
+      forecastStart: string;
       horizon?: number;
     },
     context: AnalysisContext,
   ): Promise<FittedResidualModel> {
-    const kept = resolveHistory(params);
-    const fitted = keptResidualModel(
-      kept,
-      params.decisions,
+    const fitted = fitResidualSeries(
+      params.series,
+      params.start,
       params.direction,
+      params.forecastStart,
       params.horizon ?? MODEL_HORIZON,
       (s, l) => context.progress(s, l),
     );
@@ -495,7 +579,10 @@ export const analysisMethods = {
     return fitted;
   },
 
-  /** The Patterns screen's decomposition and diagnostics (engine/forecast/decomposeHistory.ts). */
+  /**
+   * The Patterns screen's decomposition and diagnostics (engine/forecast/decomposeHistory.ts),
+   * its recurring flows without member ids.
+   */
   async patterns(
     params: { history: ForecastHistory; decisions: readonly RecurringDecision[] },
     context: AnalysisContext,
@@ -503,6 +590,6 @@ export const analysisMethods = {
     context.progress(0.05, 'Separating trend and seasonal patterns');
     const patterns = patternsWithKept(params.history, params.decisions);
     context.progress(1, 'Done');
-    return patterns;
+    return { ...patterns, recurring: withoutMemberIds(patterns.recurring) };
   },
 };
