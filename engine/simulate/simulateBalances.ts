@@ -77,6 +77,27 @@ function validate(input: SimulationInput): void {
   }
 }
 
+/** 2^-32: turns a raw 32-bit draw into a uniform on [0, 1). */
+const INV_2_32 = 2.3283064365386963e-10;
+
+/**
+ * A uniform on [0, 1) from one raw 32-bit draw. The hot loops use it for accept/reject
+ * decisions and indices, where 32 bits of resolution are ample and half the draws of the
+ * 53-bit `nextFloat` are saved.
+ */
+function uniform32(rng: Rng): number {
+  return rng.nextUint32() * INV_2_32;
+}
+
+/**
+ * An index in 0..n−1 by multiplying a raw draw (Lemire 2019, "Fast random integer
+ * generation in an interval", without the rejection step): the bias is below n / 2^32,
+ * far under Monte Carlo error for the sizes resampled here.
+ */
+function index32(rng: Rng, n: number): number {
+  return Math.floor(rng.nextUint32() * INV_2_32 * n);
+}
+
 function drawAmount(a: AmountDistribution, rng: Rng): number {
   switch (a.kind) {
     case 'fixed':
@@ -86,7 +107,7 @@ function drawAmount(a: AmountDistribution, rng: Rng): number {
     case 'empirical': {
       const n = a.values.length;
       if (n === 0) return 0;
-      return a.values[rng.nextInt(n)] as number;
+      return a.values[index32(rng, n)] as number;
     }
   }
 }
@@ -106,7 +127,8 @@ function cumulative(spread: TimingSpread): Float64Array {
 
 function drawOffset(spread: TimingSpread, cum: Float64Array, rng: Rng): number {
   if (cum.length === 0) return 0;
-  const u = rng.nextFloat();
+  if (cum.length === 1) return spread.offsets[0] as number;
+  const u = uniform32(rng);
   for (let i = 0; i < cum.length; i++) if (u < (cum[i] as number)) return spread.offsets[i] as number;
   return spread.offsets[cum.length - 1] as number;
 }
@@ -122,12 +144,16 @@ function fillRecurring(
   h: number,
 ): void {
   const cum = cumulative(c.timing);
+  const days = c.days;
+  const nd = days.length;
+  const probability = c.probability;
+  const fixed = c.amount.kind === 'fixed' ? c.amount.value : null;
   for (let p = 0; p < paths; p++) {
     let total = 0;
-    for (const nominal of c.days) {
-      if (c.probability < 1 && rng.nextFloat() >= c.probability) continue;
-      const day = nominal + drawOffset(c.timing, cum, rng);
-      const amount = drawAmount(c.amount, rng);
+    for (let k = 0; k < nd; k++) {
+      if (probability < 1 && uniform32(rng) >= probability) continue;
+      const day = (days[k] as number) + drawOffset(c.timing, cum, rng);
+      const amount = fixed ?? drawAmount(c.amount, rng);
       if (day >= 0 && day < h) {
         flows[p * h + day] = (flows[p * h + day] as number) + amount;
         total += amount;
@@ -149,10 +175,10 @@ function fillPlanned(
 ): void {
   const spread = Math.max(0, Math.floor(c.delayMax) - Math.floor(c.delayMin)) + 1;
   for (let p = 0; p < paths; p++) {
-    const happens = rng.nextFloat() < c.probability;
+    const happens = uniform32(rng) < c.probability;
     let total = 0;
     for (const nominal of c.days) {
-      const delay = Math.floor(c.delayMin) + (spread > 1 ? rng.nextInt(spread) : 0);
+      const delay = Math.floor(c.delayMin) + (spread > 1 ? index32(rng, spread) : 0);
       const amount = drawAmount(c.amount, rng);
       const day = nominal + delay;
       if (happens && day >= 0 && day < h) {
@@ -181,26 +207,28 @@ function fillResidual(
   const nr = residuals.length;
   const restart = c.errors.kind === 'bootstrap' ? 1 / Math.max(1, c.errors.meanBlock) : 1;
   const bootstrap = c.errors.kind === 'bootstrap' && nr > 0;
+  const offset = Float64Array.from(c.offset);
+  const offsetLength = offset.length;
   for (let p = 0; p < paths; p++) {
     let level = c.model.level;
     let trend = c.model.trend;
     for (let j = 0; j < m; j++) season[j] = c.model.season[j] as number;
     let pos = 0; // ring position of the oldest seasonal state = s_{t+1−m}
-    let index = bootstrap ? rng.nextInt(nr) : 0;
+    let index = bootstrap ? index32(rng, nr) : 0;
     let total = 0;
     for (let d = 0; d < h; d++) {
       const s = m > 0 ? (season[pos] as number) : 0;
       const mean = level + phi * trend + s;
       let e: number;
       if (bootstrap) {
-        index = rng.nextFloat() < restart ? rng.nextInt(nr) : (index + 1) % nr;
+        index = uniform32(rng) < restart ? index32(rng, nr) : index + 1 === nr ? 0 : index + 1;
         e = residuals[index] as number;
       } else {
         e = sigma * rng.normal();
       }
       // Not clamped at zero: clamping a symmetric error at zero on quiet days biases the
       // cumulative balance upwards, and the balance depends on the sums, which stay unbiased.
-      const value = mean + e + ((c.offset[d] as number) || 0);
+      const value = mean + e + (d < offsetLength ? (offset[d] as number) : 0);
       flows[p * h + d] = (flows[p * h + d] as number) + c.sign * value;
       total += c.sign * value;
       const newLevel = level + phi * trend + alpha * e;
@@ -225,15 +253,17 @@ function fillIntermittent(
   paths: number,
   h: number,
 ): void {
-  const np = c.probability.length;
-  const ns = c.sizes.length;
+  const probability = Float64Array.from(c.probability);
+  const sizes = Float64Array.from(c.sizes);
+  const np = probability.length;
+  const ns = sizes.length;
   for (let p = 0; p < paths; p++) {
     let total = 0;
     if (np > 0 && ns > 0) {
       for (let d = 0; d < h; d++) {
-        const prob = c.probability[(c.phase + d) % np] as number;
-        if (rng.nextFloat() < prob) {
-          const amount = c.sign * (c.sizes[rng.nextInt(ns)] as number);
+        const prob = probability[(c.phase + d) % np] as number;
+        if (uniform32(rng) < prob) {
+          const amount = c.sign * (sizes[index32(rng, ns)] as number);
           flows[p * h + d] = (flows[p * h + d] as number) + amount;
           total += amount;
         }
