@@ -1,185 +1,139 @@
 /**
- * Import speed: a 100,000-row CSV and a 100,000-entry camt.053 statement generated in memory
- * (with the project's writers and an invented, seeded statement), each timed through
- * detection + parsing (importStatement) and through the ledger (normalising, fingerprints,
- * duplicate detection, reconciliation: buildLedger), plus the camt file and the CSV together
- * (every CSV row then a duplicate). The reference is a plain CSV split of the same text
- * (split into lines, split each line at the delimiter). Figures only, nothing asserted.
+ * Import speed and memory: a 100,000-row CSV and a 100,000-entry camt.053 statement,
+ * generated from one invented, seeded statement with the project's writers
+ * (_importInputs.ts), written to a temporary directory first, then each imported in a fresh
+ * Node process (_importCase.ts) so that generating never counts as importing:
  *
- * Run: npm run bench import  (or npx tsx test/bench/import.ts)
+ * - time of importStatement (decode, detect, parse) and of buildLedger (normalise,
+ *   fingerprints, duplicate detection, reconciliation), median of several runs;
+ * - peak rss of the importing process (kernel maxRSS, which sees the peak inside
+ *   synchronous code), its baseline before the import (code + input bytes) and the heap the
+ *   result still holds after a collection;
+ * - for the CSV, the same text read by a minimal RFC 4180 parser (_plainCsv.ts: quotes
+ *   handled, every field a string) as the reference, timed in the same process,
+ *   alternating with the import runs;
+ * - the camt file and the CSV together (every CSV row then a duplicate).
+ *
+ * Figures only, nothing asserted. Run: npm run bench import  (RUNS=n to change the runs)
  */
-import { addDays } from '../../engine/core/dates';
-import { createRng } from '../../engine/core/random';
-import { importStatement } from '../../engine/import/registry';
-import type { ImportResult, ParsedStatement, StatementEntry } from '../../engine/import/types';
-import { buildLedger, type LedgerInputFile } from '../../engine/ledger/buildLedger';
-import { writeCamt053 } from '../../engine/write/camt053';
-import { writeCsv } from '../../engine/write/csv';
-import { encodeText } from '../../engine/write/encode';
+import { spawnSync } from 'node:child_process';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { BENCH_ROWS, writeImportInputs } from './_importInputs';
 
-const ROWS = 100_000;
-const RUNS = 3;
-const IBAN = 'NL94EBBL0123456789';
+const RUNS = Number(process.env.RUNS ?? 5);
+const here = dirname(fileURLToPath(import.meta.url));
 
-const gc = (globalThis as { gc?: () => void }).gc;
-
-const MiB = 2 ** 20;
-let baseline = 0;
-
-/** Heap in use after a collection (when --expose-gc is on), in bytes. */
-function settledHeap(): number {
-  gc?.();
-  return process.memoryUsage().heapUsed;
+interface Run {
+  ms: number;
+  cpu: number;
 }
 
-/**
- * Memory figures: heap retained above the baseline (the generated inputs) by what is still
- * referenced, current rss and the process's peak rss so far (inputs included).
- */
-function memory(): string {
-  const heap = settledHeap();
-  const rss = process.memoryUsage().rss / MiB;
-  const peak = process.resourceUsage().maxRSS / 1024;
-  return `heap +${((heap - baseline) / MiB).toFixed(0)} MiB over the inputs, rss ${rss.toFixed(0)} MiB, peak rss so far ${peak.toFixed(0)} MiB`;
+interface CaseResult {
+  mode: string;
+  entries: number;
+  transactions: number;
+  dropped: number;
+  reconciled: boolean;
+  memory: {
+    baseRss: number;
+    baseHeap: number;
+    peakRss: number;
+    peakAboveBase: number;
+    keptHeap: number;
+    keptPerEntry: number;
+    coldMs: number;
+  };
+  parse: Run;
+  ledger: Run;
+  total: Run;
+  plain?: Run;
+  decode?: Run;
+  plainRecords?: number;
+  plainFields?: number;
 }
 
-/** Median wall time of `RUNS` runs after one warm-up; returns the last result too. */
-function time<T>(run: () => T): { ms: number; result: T } {
-  let result = run();
-  const times: number[] = [];
-  for (let i = 0; i < RUNS; i++) {
-    gc?.();
-    const start = performance.now();
-    result = run();
-    times.push(performance.now() - start);
-  }
-  times.sort((a, b) => a - b);
-  return { ms: times[Math.floor(RUNS / 2)] as number, result };
+function runCase(mode: string, dir: string): CaseResult {
+  const r = spawnSync(
+    process.execPath,
+    ['--expose-gc', '--import', 'tsx', join(here, '_importCase.ts'), mode, dir, String(RUNS)],
+    { encoding: 'utf8', maxBuffer: 1 << 24 },
+  );
+  if (r.status !== 0) throw new Error(`${mode}: exited with ${r.status ?? r.signal}\n${r.stderr}`);
+  const line = r.stdout.trim().split('\n').pop() as string;
+  return JSON.parse(line) as CaseResult;
 }
 
-function report(label: string, ms: number, rows: number, extra = ''): void {
-  const rate = Math.round(rows / (ms / 1000));
+const rate = (rows: number, ms: number): string =>
+  Math.round(rows / (ms / 1000))
+    .toLocaleString('en-US')
+    .padStart(10);
+
+function row(label: string, run: Run, rows: number, extra = ''): void {
   console.log(
-    `${label.padEnd(54)} ${ms.toFixed(0).padStart(7)} ms  ${rate.toLocaleString('en-US').padStart(11)} rows/s${extra}`,
+    `${label.padEnd(56)} ${run.ms.toFixed(0).padStart(6)} ms ${rate(rows, run.ms)} rows/s` +
+      `   cpu ${run.cpu.toFixed(0).padStart(6)} ms ${rate(rows, run.cpu)} rows/s${extra}`,
   );
 }
 
-// An invented statement: market takings, supplies, rent and fees over about three years.
-const rng = createRng(100_000);
-const words = ['Clay', 'Glaze', 'Kiln', 'Market', 'Studio', 'Commission', 'Tableware', 'Shelf', 'Brushes', 'Packaging'];
-const counterparties = ['Riverclay Supplies', 'Tillpoint Payments', 'Kilnyard Studios', 'Fennel & Rye Bistro'];
-const entries: StatementEntry[] = [];
-let date = '2023-11-01';
-for (let i = 0; i < ROWS; i++) {
-  if (rng.nextFloat() < 0.011) date = addDays(date, 1);
-  const credit = rng.nextFloat() < 0.4;
-  const amount = (credit ? 1 : -1) * (100 + rng.nextInt(250_000));
-  entries.push({
-    bookingDate: date,
-    valueDate: date,
-    amount,
-    description: `${words[rng.nextInt(words.length)]} ${words[rng.nextInt(words.length)]} ref ${rng.nextInt(1_000_000)}`,
-    counterparty: counterparties[rng.nextInt(counterparties.length)] as string,
-    bankRef: `B${String(i).padStart(7, '0')}`,
-    status: 'booked',
-    source: {},
-  });
-}
-const opening = 1_000_000;
-const closing = entries.reduce((s, e) => s + e.amount, opening);
-const statement: ParsedStatement = {
-  account: { identifier: IBAN },
-  currency: 'EUR',
-  statementId: 'BENCH-1',
-  from: '2023-11-01',
-  to: date,
-  entries,
-  balances: [
-    { kind: 'opening', date: '2023-11-01', at: 'start', amount: opening, source: {} },
-    { kind: 'closing', date, at: 'end', amount: closing, source: {} },
-  ],
-};
+/** "2.1x (cpu 1.9x)": how many times the reference's time a run took. */
+const times = (run: Run, reference: Run): string =>
+  `${(run.ms / reference.ms).toFixed(2)}x (cpu ${(run.cpu / reference.cpu).toFixed(2)}x) the reference`;
 
-const csvText = writeCsv(
-  { ...statement, entries: entries.map(({ bankRef: _b, valueDate: _v, ...rest }) => rest) },
-  {
-    delimiter: ';',
-    decimalSeparator: ',',
-    thousandsSeparator: '.',
-    dateFormat: 'DD.MM.YYYY',
-    signStyle: 'signed',
-    runningBalance: true,
-    newestFirst: false,
-    preambleLines: ['Account;NL94 EBBL 0123 4567 89', 'Currency;EUR'],
-    includeCurrencyColumn: false,
-    lineEnding: '\r\n',
-  },
-);
-const camtText = writeCamt053([statement], { version: '001.08' });
-const csvBytes = encodeText(csvText, 'utf-8');
-const camtBytes = encodeText(camtText, 'utf-8');
-console.log(
-  `inputs: CSV ${ROWS.toLocaleString('en-US')} rows, ${(csvBytes.length / 2 ** 20).toFixed(1)} MiB; ` +
-    `camt.053 ${ROWS.toLocaleString('en-US')} entries, ${(camtBytes.length / 2 ** 20).toFixed(1)} MiB; median of ${RUNS} runs after a warm-up`,
-);
-baseline = settledHeap();
-console.log(
-  `memory with the inputs generated: heap ${(baseline / MiB).toFixed(0)} MiB, peak rss ${(process.resourceUsage().maxRSS / 1024).toFixed(0)} MiB` +
-    (gc ? '' : ' (run with --expose-gc for settled heap figures)'),
-);
-
-// Reference: the plainest possible CSV reading of the same text.
-const plain = time(() => {
-  let fields = 0;
-  for (const line of csvText.split('\r\n')) fields += line.split(';').length;
-  return fields;
-});
-report('CSV plain split (lines, then fields)', plain.ms, ROWS);
-
-function parse(bytes: Uint8Array, file: string): LedgerInputFile {
-  const result = importStatement(bytes, { fileName: file });
-  if (result.format === undefined || result.problems.some((p) => p.severity === 'error')) {
-    throw new Error(`${file}: ${result.problems[0]?.message ?? 'not imported'}`);
-  }
-  return { file, result: result as ImportResult };
+function memoryLine(r: CaseResult): void {
+  const m = r.memory;
+  console.log(
+    `  memory (fresh process, first import): peak rss ${m.peakRss.toFixed(0)} MiB = baseline ${m.baseRss.toFixed(0)} MiB ` +
+      `(code + input bytes) + ${m.peakAboveBase.toFixed(0)} MiB during the import; ` +
+      `heap kept by result + ledger ${m.keptHeap.toFixed(0)} MiB (${Math.round(m.keptPerEntry)} B/entry); ` +
+      `cold run ${m.coldMs.toFixed(0)} ms`,
+  );
 }
 
-const csvParse = time(() => parse(csvBytes, 'bench.csv'));
-report(
-  'CSV importStatement (detect + parse)',
-  csvParse.ms,
-  ROWS,
-  `  ${(csvParse.ms / plain.ms).toFixed(1)}x the plain split`,
-);
-console.log(`  ImportResult kept: ${memory()}`);
-const csvLedger = time(() => buildLedger([csvParse.result]));
-report('CSV buildLedger (normalise + dedupe + reconcile)', csvLedger.ms, ROWS);
-report(
-  'CSV total',
-  csvParse.ms + csvLedger.ms,
-  ROWS,
-  `  ${((csvParse.ms + csvLedger.ms) / plain.ms).toFixed(1)}x the plain split`,
-);
-console.log(
-  `  reconciled: ${csvLedger.result.reconciliation[0]?.reconciled}; ImportResult and Ledger kept: ${memory()}`,
-);
+const dir = mkdtempSync(join(tmpdir(), 'ebbline-import-bench-'));
+try {
+  const inputs = writeImportInputs(dir, BENCH_ROWS);
+  const [l1, l5] = loadavg() as [number, number, number];
+  console.log(
+    `inputs: CSV ${inputs.rows.toLocaleString('en-US')} rows, ${(inputs.csvBytes / 2 ** 20).toFixed(1)} MiB; ` +
+      `camt.053 ${inputs.rows.toLocaleString('en-US')} entries, ${(inputs.camtBytes / 2 ** 20).toFixed(1)} MiB; ` +
+      `each case in a fresh process, median of ${RUNS} runs after a cold first run; ` +
+      `load average ${l1.toFixed(1)} / ${l5.toFixed(1)} (wall times include waiting for a core on a busy machine; ` +
+      `cpu = the importing process's user + system time)`,
+  );
 
-const camtParse = time(() => parse(camtBytes, 'bench.xml'));
-report('camt.053 importStatement (detect + parse)', camtParse.ms, ROWS);
-console.log(`  ImportResult kept: ${memory()}`);
-const camtLedger = time(() => buildLedger([camtParse.result]));
-report('camt.053 buildLedger (normalise + dedupe + reconcile)', camtLedger.ms, ROWS);
-report('camt.053 total', camtParse.ms + camtLedger.ms, ROWS);
-console.log(
-  `  reconciled: ${camtLedger.result.reconciliation[0]?.reconciled}; both ImportResults and Ledgers kept: ${memory()}`,
-);
+  const csv = runCase('csv', dir);
+  const plain = csv.plain as Run;
+  row(
+    'CSV reference: minimal RFC 4180 parser (text in)',
+    plain,
+    csv.entries,
+    `  ${csv.plainRecords?.toLocaleString('en-US')} records, ${csv.plainFields?.toLocaleString('en-US')} string fields`,
+  );
+  row('  (UTF-8 decoding of the bytes alone)', csv.decode as Run, csv.entries);
+  row('CSV importStatement (bytes in: decode, detect, parse)', csv.parse, csv.entries, `  ${times(csv.parse, plain)}`);
+  row('CSV buildLedger (normalise, dedupe, reconcile)', csv.ledger, csv.entries);
+  row('CSV import total (importStatement + buildLedger)', csv.total, csv.entries, `  ${times(csv.total, plain)}`);
+  console.log(`  reconciled: ${csv.reconciled}; ${csv.transactions.toLocaleString('en-US')} transactions`);
+  memoryLine(csv);
 
-const both = time(() => buildLedger([camtParse.result, csvParse.result]));
-const dropped = both.result.files[1]?.accounts[0]?.duplicates ?? 0;
-report(
-  'camt.053 + CSV buildLedger (CSV rows all duplicates)',
-  both.ms,
-  2 * ROWS,
-  `  ${dropped.toLocaleString('en-US')} dropped`,
-);
-console.log(`  everything kept: ${memory()}`);
+  const camt = runCase('camt', dir);
+  row('camt.053 importStatement (bytes in: decode, detect, parse)', camt.parse, camt.entries);
+  row('camt.053 buildLedger (normalise, dedupe, reconcile)', camt.ledger, camt.entries);
+  row('camt.053 import total', camt.total, camt.entries);
+  console.log(`  reconciled: ${camt.reconciled}; ${camt.transactions.toLocaleString('en-US')} transactions`);
+  memoryLine(camt);
+
+  const both = runCase('both', dir);
+  row(
+    'camt.053 + CSV buildLedger (CSV rows all duplicates)',
+    both.ledger,
+    both.entries,
+    `  ${both.dropped.toLocaleString('en-US')} dropped`,
+  );
+  memoryLine(both);
+} finally {
+  rmSync(dir, { recursive: true, force: true });
+}
