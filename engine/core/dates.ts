@@ -74,18 +74,34 @@ export function formatYmd(year: number, month: number, day: number): CalendarDat
   return `${pad(year, 4)}-${pad(month, 2)}-${pad(day, 2)}`;
 }
 
-const ISO_DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
+/**
+ * The digits of a strict `YYYY-MM-DD` (ASCII digits, dashes at 4 and 7, nothing else) as
+ * the number YYYYMMDD, or -1. Read from char codes: dates are parsed for every entry of a
+ * statement, so no regular expression and no match array.
+ */
+function packedIsoDate(text: string): number {
+  if (typeof text !== 'string' || text.length !== 10) return -1;
+  if (text.charCodeAt(4) !== 0x2d || text.charCodeAt(7) !== 0x2d) return -1;
+  let value = 0;
+  for (let i = 0; i < 10; i++) {
+    if (i === 4 || i === 7) continue;
+    const digit = text.charCodeAt(i) - 0x30;
+    if (digit < 0 || digit > 9) return -1;
+    value = value * 10 + digit;
+  }
+  return value;
+}
 
 /**
  * Parses a strict `YYYY-MM-DD` date; returns undefined when it is not a real day.
  * @example parseIsoDate('2025-04-31') // undefined
  */
 export function parseIsoDate(text: string): { year: number; month: number; day: number } | undefined {
-  const m = ISO_DATE.exec(text);
-  if (!m) return undefined;
-  const year = Number(m[1]);
-  const month = Number(m[2]);
-  const day = Number(m[3]);
+  const packed = packedIsoDate(text);
+  if (packed < 0) return undefined;
+  const year = Math.floor(packed / 10000);
+  const month = Math.floor(packed / 100) % 100;
+  const day = packed % 100;
   return isValidYmd(year, month, day) ? { year, month, day } : undefined;
 }
 
@@ -100,9 +116,14 @@ export function isCalendarDate(text: string): boolean {
  * @example toDayNumber('1970-01-02') // 1
  */
 export function toDayNumber(date: CalendarDate): DayNumber {
-  const p = parseIsoDate(date);
-  if (!p) throw new EngineError('INVALID_DATE', `not a calendar date (YYYY-MM-DD): "${date}"`);
-  return daysFromCivil(p.year, p.month, p.day);
+  const packed = packedIsoDate(date);
+  const year = Math.floor(packed / 10000);
+  const month = Math.floor(packed / 100) % 100;
+  const day = packed % 100;
+  if (packed < 0 || !isValidYmd(year, month, day)) {
+    throw new EngineError('INVALID_DATE', `not a calendar date (YYYY-MM-DD): "${date}"`);
+  }
+  return daysFromCivil(year, month, day);
 }
 
 /** `YYYY-MM-DD` of a day number. @example fromDayNumber(1) // '1970-01-02' */

@@ -23,6 +23,9 @@ const BODY = /(?:^|[\r\n]|\{4:):(?:61|60F|60M|62F|62M):/;
  * @example sniffMt940('Date;Amount\n2025-01-01;12') // 0
  */
 export function sniffMt940(text: string): number {
+  // A text without ':20:' anywhere cannot match TWENTY; indexOf says so far faster than the
+  // regular expression's scan of a large CSV or XML file.
+  if (text.indexOf(':20:') === -1) return 0;
   return TWENTY.test(text) && BODY.test(text) ? 1 : 0;
 }
 

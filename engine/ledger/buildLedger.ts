@@ -17,7 +17,13 @@ import { EngineError } from '../core/errors';
 import { exponentOf, formatMinor } from '../core/money';
 import { hasErrors } from '../import/types';
 import type { AccountKind, ImportProblem, ImportResult, ParsedStatement, StatementEntry } from '../import/types';
-import { createDuplicateIndex, findDuplicates, recordFile, type DuplicateCandidate } from './duplicateIndex';
+import {
+  createDuplicateIndex,
+  findDuplicateColumns,
+  keepFile,
+  usableBankRef,
+  type CandidateColumns,
+} from './duplicateIndex';
 import { entryFingerprint } from './fingerprint';
 import { identifierKeys, normaliseIdentifier } from './normaliseIdentifier';
 import { anchorEndDay, reconcileAccount } from './reconcileAccount';
@@ -104,6 +110,33 @@ function ledgerTransaction(
   return t;
 }
 
+/**
+ * The kept transactions ordered by account (in order of appearance), booking day, then the
+ * order they were found in. Statements list their entries by date, so the order usually
+ * holds already and one pass confirms it; otherwise a stable sort on one numeric key per
+ * transaction (account and day packed together). O(n), or O(n log n) when out of order.
+ */
+function sortedTransactions(
+  kept: LedgerTransaction[],
+  accountOrder: readonly number[],
+  day: readonly number[],
+): LedgerTransaction[] {
+  const n = kept.length;
+  let sorted = true;
+  for (let i = 1; i < n && sorted; i++) {
+    const a = accountOrder[i - 1] as number;
+    const b = accountOrder[i] as number;
+    sorted = a < b || (a === b && (day[i - 1] as number) <= (day[i] as number));
+  }
+  if (sorted) return kept;
+  // Day numbers of years 1–9999 lie in [-719162, 2932896]: shifted, they fit below 2^22.
+  const key = new Float64Array(n);
+  for (let i = 0; i < n; i++) key[i] = (accountOrder[i] as number) * 4_194_304 + (day[i] as number) + 719_162;
+  const order = Array.from({ length: n }, (_, i) => i);
+  order.sort((a, b) => (key[a] as number) - (key[b] as number)); // stable: ties keep found order
+  return order.map((i) => kept[i] as LedgerTransaction);
+}
+
 function groupBy<T>(items: readonly T[], key: (item: T) => string): Map<string, T[]> {
   const groups = new Map<string, T[]>();
   for (const item of items) {
@@ -172,8 +205,12 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
   const byKey = new Map<string, MutableAccount>();
   const usedIds = new Set<string>();
   const index = createDuplicateIndex();
-  const occurrences = new Map<string, Map<string, number>>();
-  const transactions: { t: LedgerTransaction; account: number; day: number; seq: number }[] = [];
+  // Kept transactions in the order found, with their account order and booking day.
+  const kept: LedgerTransaction[] = [];
+  const keptAccount: number[] = [];
+  const keptDay: number[] = [];
+  let lastDate: string | undefined;
+  let lastDay = 0;
   const anchors: { a: BalanceAnchor; account: number; end: number; seq: number }[] = [];
   const anchorKeys = new Set<string>();
   const statements: StatementCheck[] = [];
@@ -232,8 +269,15 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
   for (const { file, result } of files) {
     const perAccount = new Map<string, FileAccumulator>();
     const notices: ImportProblem[] = [];
-    const candidates: DuplicateCandidate[] = [];
-    const booked: { entry: StatementEntry; account: MutableAccount; fingerprint: string }[] = [];
+    // The booked entries of the file as parallel arrays (no record object per entry): what
+    // duplicate detection needs, then what the kept transaction needs.
+    const accountIds: string[] = [];
+    const fingerprints: string[] = [];
+    const refs: (string | undefined)[] = [];
+    const bookedEntries: StatementEntry[] = [];
+    const bookedAccounts: MutableAccount[] = [];
+    const bookedTotals: FileAccumulator[] = [];
+    const bookedDays: number[] = [];
 
     result.statements.forEach((statement, statementIndex) => {
       const currency = statement.currency || options.currency;
@@ -242,7 +286,8 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
       }
       const exponent = exponentOf(currency);
       const account = resolveAccount(statement, file, currency);
-      statements.push(checkStatement(file, statementIndex, account.id, statement));
+      const stated = statementBalances(statement);
+      statements.push(checkStatement(file, statementIndex, account.id, statement, stated));
 
       let acc = perAccount.get(account.id);
       if (!acc) {
@@ -261,7 +306,7 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
         perAccount.set(account.id, acc);
       }
       const span = statementSpan(statement);
-      const { opening, closing } = statementBalances(statement);
+      const { opening, closing } = stated;
       if (span) {
         if (acc.earliest === null || span.first < acc.earliest.day) acc.earliest = { day: span.first, opening };
         if (acc.latest === null || span.last >= acc.latest.day) acc.latest = { day: span.last, closing };
@@ -291,14 +336,21 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
         anchors.push({ a, account: account.order, end: anchorEndDay(a), seq: seq++ });
       }
 
-      for (const entry of statement.entries) {
+      const entries = statement.entries;
+      for (let k = 0; k < entries.length; k++) {
+        const entry = entries[k] as StatementEntry;
         if (!Number.isSafeInteger(entry.amount)) {
           throw new EngineError(
             'INVALID_AMOUNT',
             `${file}: entry of ${entry.bookingDate} is not a whole number of minor units`,
           );
         }
-        toDayNumber(entry.bookingDate); // throws INVALID_DATE for a date an importer let through
+        // Throws INVALID_DATE for a date an importer let through. Entries come in runs of one
+        // day, so the last conversion is reused while the date repeats.
+        if (entry.bookingDate !== lastDate) {
+          lastDay = toDayNumber(entry.bookingDate);
+          lastDate = entry.bookingDate;
+        }
         if (entry.status === 'booked') {
           if (acc.from === null || entry.bookingDate < acc.from) acc.from = entry.bookingDate;
           if (acc.to === null || entry.bookingDate > acc.to) acc.to = entry.bookingDate;
@@ -316,43 +368,36 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
         }
         acc.net += entry.amount;
         const fingerprint = entryFingerprint(entry);
-        const candidate: { accountId: string; fingerprint: string; bankRef?: string } = {
-          accountId: account.id,
-          fingerprint,
-        };
-        if (entry.bankRef !== undefined) candidate.bankRef = entry.bankRef;
-        candidates.push(candidate);
-        booked.push({ entry, account, fingerprint });
+        accountIds.push(account.id);
+        fingerprints.push(fingerprint);
+        refs.push(entry.bankRef === undefined ? undefined : usableBankRef(entry.bankRef));
+        bookedEntries.push(entry);
+        bookedAccounts.push(account);
+        bookedTotals.push(acc);
+        bookedDays.push(lastDay);
       }
     });
 
-    const duplicateOf = findDuplicates(index, candidates);
-    const keptIds: (string | null)[] = [];
-    booked.forEach(({ entry, account, fingerprint }, i) => {
-      const acc = perAccount.get(account.id) as FileAccumulator;
-      if (duplicateOf[i] !== null) {
+    const candidates: CandidateColumns = { accountIds, fingerprints, refs };
+    const duplicateOf = findDuplicateColumns(index, candidates);
+    const ids: string[] = new Array<string>(accountIds.length);
+    const occurrenceOf = keepFile(index, candidates, duplicateOf, (i, occurrence) => {
+      return (ids[i] = `${accountIds[i] as string}|${fingerprints[i] as string}|${occurrence}`);
+    });
+    for (let i = 0; i < accountIds.length; i++) {
+      const acc = bookedTotals[i] as FileAccumulator;
+      const occurrence = occurrenceOf[i] as number;
+      if (occurrence === 0) {
         acc.duplicates++;
-        keptIds.push(null);
-        return;
+        continue;
       }
       acc.entries++;
-      let counts = occurrences.get(account.id);
-      if (counts === undefined) {
-        counts = new Map<string, number>();
-        occurrences.set(account.id, counts);
-      }
-      const occurrence = (counts.get(fingerprint) ?? 0) + 1;
-      counts.set(fingerprint, occurrence);
-      const id = `${account.id}|${fingerprint}|${occurrence}`;
-      keptIds.push(id);
-      transactions.push({
-        t: ledgerTransaction(entry, id, account, fingerprint, file, occurrence),
-        account: account.order,
-        day: toDayNumber(entry.bookingDate),
-        seq: seq++,
-      });
-    });
-    recordFile(index, candidates, keptIds, duplicateOf);
+      const account = bookedAccounts[i] as MutableAccount;
+      const entry = bookedEntries[i] as StatementEntry;
+      kept.push(ledgerTransaction(entry, ids[i] as string, account, fingerprints[i] as string, file, occurrence));
+      keptAccount.push(account.order);
+      keptDay.push(bookedDays[i] as number);
+    }
 
     const accountReports: FileAccountReport[] = [...perAccount.values()].map((acc) => ({
       accountId: acc.accountId,
@@ -374,7 +419,7 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
     });
   }
 
-  transactions.sort((x, y) => x.account - y.account || x.day - y.day || x.seq - y.seq);
+  const txs = sortedTransactions(kept, keptAccount, keptDay);
   anchors.sort((x, y) => x.account - y.account || x.end - y.end || x.seq - y.seq);
   const ledgerAccounts: LedgerAccount[] = accounts.map((a) => ({
     id: a.id,
@@ -383,7 +428,6 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
     identifiers: [...a.identifiers],
     kind: a.kind,
   }));
-  const txs = transactions.map((x) => x.t);
   const anchorList = anchors.map((x) => x.a);
   const txByAccount = groupBy(txs, (t) => t.accountId);
   const anchorsByAccount = groupBy(anchorList, (a) => a.accountId);

@@ -58,13 +58,40 @@ const PLACEHOLDER_REF = /^(NONREF|NOREF|NOTPROVIDED|NONE|N\/A|-+|0+)$/i;
  * @example usableBankRef(' NONREF ') // undefined
  */
 export function usableBankRef(bankRef: string | undefined): string | undefined {
-  const ref = bankRef?.trim();
-  return ref && !PLACEHOLDER_REF.test(ref) ? ref : undefined;
+  if (bankRef === undefined) return undefined;
+  const ref = bankRef.trim();
+  if (ref === '') return undefined;
+  // Every placeholder starts with N, n, - or 0: other ids need no regular expression.
+  const first = ref.charCodeAt(0);
+  if (first !== 0x4e && first !== 0x6e && first !== 0x2d && first !== 0x30) return ref;
+  return PLACEHOLDER_REF.test(ref) ? undefined : ref;
 }
 
 /** An empty index for a new ledger. */
 export function createDuplicateIndex(): DuplicateIndex {
   return { refs: new Map(), pools: new Map() };
+}
+
+/**
+ * One file's candidates as parallel arrays, the form the ledger builds (no object per
+ * entry): account ids, fingerprints and usable bank ids (`usableBankRef` already applied).
+ */
+export interface CandidateColumns {
+  readonly accountIds: readonly string[];
+  readonly fingerprints: readonly string[];
+  readonly refs: readonly (string | undefined)[];
+}
+
+/**
+ * The columns of candidate objects.
+ * @example candidateColumns([{ accountId: 'A', fingerprint: 'f', bankRef: ' NONREF ' }]).refs // [undefined]
+ */
+export function candidateColumns(candidates: readonly DuplicateCandidate[]): CandidateColumns {
+  return {
+    accountIds: candidates.map((c) => c.accountId),
+    fingerprints: candidates.map((c) => c.fingerprint),
+    refs: candidates.map((c) => usableBankRef(c.bankRef)),
+  };
 }
 
 /**
@@ -76,39 +103,63 @@ export function createDuplicateIndex(): DuplicateIndex {
  * findDuplicates(index, [{ accountId: 'A', fingerprint: 'f' }]); // [null]
  */
 export function findDuplicates(index: DuplicateIndex, candidates: readonly DuplicateCandidate[]): (KeptEntry | null)[] {
-  const duplicateOf: (KeptEntry | null)[] = new Array<KeptEntry | null>(candidates.length).fill(null);
+  return findDuplicateColumns(index, candidateColumns(candidates));
+}
+
+/**
+ * `findDuplicates` for candidates given as columns.
+ * @example findDuplicateColumns(createDuplicateIndex(), { accountIds: ['A'], fingerprints: ['f'], refs: [undefined] }) // [null]
+ */
+export function findDuplicateColumns(index: DuplicateIndex, candidates: CandidateColumns): (KeptEntry | null)[] {
+  const { accountIds, fingerprints, refs: candidateRefs } = candidates;
+  const n = accountIds.length;
+  const duplicateOf: (KeptEntry | null)[] = new Array<KeptEntry | null>(n).fill(null);
   const claimed = new Set<KeptEntry>();
+  // The account's maps are looked up once per run of candidates of one account; an account
+  // seen in no earlier file has none, and then its candidates need no lookup at all.
   // 1. Bank ids.
-  candidates.forEach((c, i) => {
-    const ref = usableBankRef(c.bankRef);
-    if (ref === undefined) return;
-    const earlier = index.refs.get(c.accountId)?.get(ref);
+  let accountId: string | undefined;
+  let refs: Map<string, KeptEntry> | undefined;
+  for (let i = 0; i < n; i++) {
+    if (accountIds[i] !== accountId) {
+      accountId = accountIds[i] as string;
+      refs = index.refs.get(accountId);
+    }
+    const ref = candidateRefs[i];
+    if (refs === undefined || ref === undefined) continue;
+    const earlier = refs.get(ref);
     if (earlier !== undefined) {
       duplicateOf[i] = earlier;
       claimed.add(earlier);
     }
-  });
+  }
   // 2. Fingerprints, pool by pool, in file order.
   const groups = new Map<KeptEntry[], number[]>();
-  candidates.forEach((c, i) => {
-    if (duplicateOf[i] !== null) return;
-    const pool = index.pools.get(c.accountId)?.get(c.fingerprint);
-    if (pool === undefined) return;
+  let pools: Map<string, KeptEntry[]> | undefined;
+  accountId = undefined;
+  for (let i = 0; i < n; i++) {
+    if (accountIds[i] !== accountId) {
+      accountId = accountIds[i] as string;
+      pools = index.pools.get(accountId);
+    }
+    if (pools === undefined || duplicateOf[i] !== null) continue;
+    const pool = pools.get(fingerprints[i] as string);
+    if (pool === undefined) continue;
     const members = groups.get(pool);
     if (members) members.push(i);
     else groups.set(pool, [i]);
-  });
+  }
   for (const [earlierPool, members] of groups) {
     const pool = earlierPool.filter((item) => !claimed.has(item));
     const withRef = pool.filter((item) => item.ref !== undefined);
     const withoutRef = pool.filter((item) => item.ref === undefined);
     let r = 0;
-    let n = 0;
+    let k = 0;
     for (const i of members) {
-      const hasRef = usableBankRef((candidates[i] as DuplicateCandidate).bankRef) !== undefined;
+      const hasRef = candidateRefs[i] !== undefined;
       let match: KeptEntry | undefined;
       if (!hasRef && r < withRef.length) match = withRef[r++];
-      else if (n < withoutRef.length) match = withoutRef[n++];
+      else if (k < withoutRef.length) match = withoutRef[k++];
       if (match) duplicateOf[i] = match;
     }
   }
@@ -128,26 +179,56 @@ export function recordFile(
   keptIds: readonly (string | null)[],
   duplicateOf: readonly (KeptEntry | null)[],
 ): void {
+  keepFile(index, candidateColumns(candidates), duplicateOf, (i) => keptIds[i] ?? null);
+}
+
+/**
+ * `recordFile` that names the kept entries as it goes: `idOf(i, occurrence)` gives the id of
+ * kept candidate i, where `occurrence` is its 1-based count among the kept entries of its
+ * account with its fingerprint (this file's earlier ones included). The pools hold exactly
+ * those entries, so the count is the pool's length and needs no map of its own.
+ *
+ * @returns per candidate its occurrence, 0 for a duplicate (or when `idOf` gives null).
+ * @example
+ * const index = createDuplicateIndex();
+ * const c = { accountIds: ['A', 'A'], fingerprints: ['f', 'f'], refs: [undefined, undefined] };
+ * keepFile(index, c, findDuplicateColumns(index, c), (i, k) => `A|f|${k}`); // Int32Array [1, 2]
+ */
+export function keepFile(
+  index: DuplicateIndex,
+  candidates: CandidateColumns,
+  duplicateOf: readonly (KeptEntry | null)[],
+  idOf: (candidate: number, occurrence: number) => string | null,
+): Int32Array {
+  const { accountIds, fingerprints, refs: candidateRefs } = candidates;
+  const n = accountIds.length;
+  const occurrences = new Int32Array(n);
   let accountId: string | undefined;
   let pools = new Map<string, KeptEntry[]>();
   let refs = new Map<string, KeptEntry>();
-  candidates.forEach((c, i) => {
-    if (c.accountId !== accountId) {
-      accountId = c.accountId;
+  for (let i = 0; i < n; i++) {
+    if (accountIds[i] !== accountId) {
+      accountId = accountIds[i] as string;
       pools = inner(index.pools, accountId);
       refs = inner(index.refs, accountId);
     }
-    const ref = usableBankRef(c.bankRef);
-    const id = keptIds[i];
+    const ref = candidateRefs[i];
     let item = duplicateOf[i] ?? null;
-    if (item === null && id !== null && id !== undefined) {
-      item = { id, ref };
-      const pool = pools.get(c.fingerprint);
-      if (pool) pool.push(item);
-      else pools.set(c.fingerprint, [item]);
-    } else if (item !== null && ref !== undefined && item.ref === undefined) {
+    if (item === null) {
+      const fingerprint = fingerprints[i] as string;
+      const pool = pools.get(fingerprint);
+      const occurrence = (pool === undefined ? 0 : pool.length) + 1;
+      const id = idOf(i, occurrence);
+      if (id !== null) {
+        item = { id, ref };
+        if (pool) pool.push(item);
+        else pools.set(fingerprint, [item]);
+        occurrences[i] = occurrence;
+      }
+    } else if (ref !== undefined && item.ref === undefined) {
       item.ref = ref;
     }
     if (item !== null && ref !== undefined && !refs.has(ref)) refs.set(ref, item);
-  });
+  }
+  return occurrences;
 }

@@ -33,9 +33,15 @@ export function cumulativeFlows(
   transactions: readonly { readonly bookingDate: CalendarDate; readonly amount: number }[],
 ): CumulativeFlows {
   const byDay = new Map<number, number>();
+  // Transactions come in runs of one day: the last date's day number is reused while it repeats.
+  let lastDate: string | undefined;
+  let lastDay = 0;
   for (const t of transactions) {
-    const d = toDayNumber(t.bookingDate);
-    byDay.set(d, (byDay.get(d) ?? 0) + t.amount);
+    if (t.bookingDate !== lastDate) {
+      lastDay = toDayNumber(t.bookingDate);
+      lastDate = t.bookingDate;
+    }
+    byDay.set(lastDay, (byDay.get(lastDay) ?? 0) + t.amount);
   }
   const days = Int32Array.from(byDay.keys()).sort();
   const totals = new Float64Array(days.length);

@@ -28,8 +28,16 @@ export function statementBalances(statement: Pick<ParsedStatement, 'balances' | 
   if (opening === null && firstRunning !== undefined) {
     const upTo = toDayNumber(firstRunning.date);
     let before = 0;
+    // Entries come in runs of one day: the last date's day number is reused while it repeats.
+    let lastDate: string | undefined;
+    let lastDay = 0;
     for (const e of statement.entries) {
-      if (e.status === 'booked' && toDayNumber(e.bookingDate) <= upTo) before += e.amount;
+      if (e.status !== 'booked') continue;
+      if (e.bookingDate !== lastDate) {
+        lastDay = toDayNumber(e.bookingDate);
+        lastDate = e.bookingDate;
+      }
+      if (lastDay <= upTo) before += e.amount;
     }
     opening = firstRunning.amount - before;
   }
@@ -40,6 +48,7 @@ export function statementBalances(statement: Pick<ParsedStatement, 'balances' | 
 /**
  * Checks one statement.
  * @param accountId the ledger account the statement belongs to.
+ * @param balances `statementBalances(statement)`, when the caller has it already.
  * @example checkStatement('a.xml', 0, 'A', statement).consistent // true when opening + net = closing
  */
 export function checkStatement(
@@ -47,8 +56,9 @@ export function checkStatement(
   statementIndex: number,
   accountId: string,
   statement: ParsedStatement,
+  balances: { opening: number | null; closing: number | null } = statementBalances(statement),
 ): StatementCheck {
-  const { opening, closing } = statementBalances(statement);
+  const { opening, closing } = balances;
   let net = 0;
   for (const e of statement.entries) if (e.status === 'booked') net += e.amount;
   const checkable = opening !== null && closing !== null;

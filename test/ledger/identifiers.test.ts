@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ibanCheckDigits, isValidIban } from '../../engine/ledger/iban';
 import { identifierKeys, normaliseIdentifier } from '../../engine/ledger/normaliseIdentifier';
@@ -54,5 +55,31 @@ describe('fingerprints', () => {
         counterparty: 'Moss & Fern',
       }),
     ).toBe(entryFingerprint({ bookingDate: '2026-01-02', amount: 500, description: 'moss fern inv 2026 031' }));
+  });
+  it('gives the same words on the ASCII fast path as the general Unicode split', () => {
+    // The definition the fast path must agree with: lower-case, NFC, split on non-letters/digits.
+    const reference = (text: string): string =>
+      [
+        ...new Set(
+          text
+            .toLowerCase()
+            .normalize('NFC')
+            .split(/[^\p{L}\p{N}]+/u)
+            .filter((w) => w !== ''),
+        ),
+      ]
+        .sort()
+        .join(' ');
+    const chars = fc.constantFrom(...'aZz09 -.,;/&|_~\t\nABCxyzé€ß'.split(''));
+    const text = fc.array(chars, { maxLength: 40 }).map((cs) => cs.join(''));
+    fc.assert(
+      fc.property(text, text, (description, counterparty) => {
+        expect(fingerprintWords(description)).toBe(reference(description));
+        expect(entryFingerprint({ bookingDate: '2026-01-02', amount: 1, description, counterparty })).toBe(
+          `2026-01-02|1|${reference(`${description} ${counterparty}`)}`,
+        );
+      }),
+      { numRuns: 500 },
+    );
   });
 });
