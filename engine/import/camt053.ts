@@ -38,7 +38,9 @@ import {
   clip,
   currencyExponent,
   descend,
+  ownText,
   textOf,
+  TextPool,
 } from './camt053/values';
 
 const INDEXED_NAMES: ReadonlySet<string> = new Set(['Stmt', 'Ntry', 'Bal', 'NtryDtls', 'TxDtls']);
@@ -241,7 +243,14 @@ class DocumentReader {
       lastDay: undefined,
       balances: [],
       entries: [],
-      ctx: { ns: this.ns, version: this.version, problems: this.problems, currency: undefined, exponent: undefined },
+      ctx: {
+        ns: this.ns,
+        version: this.version,
+        problems: this.problems,
+        currency: undefined,
+        exponent: undefined,
+        texts: new TextPool(),
+      },
     };
     const ns = this.ns;
     for (let ev = this.nextChild(4); ev; ev = this.nextChild(4)) {
@@ -266,7 +275,8 @@ class DocumentReader {
           draft.balances.push({ el, path: `${path}/Bal[${ev.index}]` });
           break;
         case 'Ntry': {
-          const entry = readEntry(el, `${path}/Ntry[${ev.index}]`, draft.ctx);
+          // Joined into one flat string: the entry keeps it as its source element.
+          const entry = readEntry(el, [path, '/Ntry[', ev.index, ']'].join(''), draft.ctx);
           if (entry) draft.entries.push(entry);
           break;
         }
@@ -366,13 +376,18 @@ class DocumentReader {
       to ??= hi;
     }
 
+    // Copied out of the document, like the entries' strings (see ownText).
+    const account: { -readonly [K in keyof StatementAccount]: StatementAccount[K] } = { ...draft.account };
+    if (account.identifier !== undefined) account.identifier = ownText(account.identifier);
+    if (account.name !== undefined) account.name = ownText(account.name);
+    if (account.servicer !== undefined) account.servicer = ownText(account.servicer);
     const statement: { -readonly [K in keyof ParsedStatement]: ParsedStatement[K] } = {
-      account: draft.account ?? {},
-      currency: currency ?? '',
+      account,
+      currency: ownText(currency ?? ''),
       entries: draft.entries,
       balances,
     };
-    if (draft.id !== undefined) statement.statementId = draft.id;
+    if (draft.id !== undefined) statement.statementId = ownText(draft.id);
     if (from !== undefined) statement.from = from;
     if (to !== undefined) statement.to = to;
     this.statements.push(statement);

@@ -27,7 +27,7 @@
 import type { StatementEntry } from '../types';
 import type { XmlElement } from '../xml';
 import { type StatementContext, readAmount, readCreditDebit, readDateChoice } from './fields';
-import { child, children, clip, descend, rawText, textOf } from './values';
+import { child, children, clip, descend, ownText, rawText, textOf } from './values';
 
 /** Max140Text: a Ustrd piece this long was most likely split for length. */
 const USTRD_MAX = 140;
@@ -94,21 +94,26 @@ export function readEntry(ntry: XmlElement, path: string, ctx: StatementContext)
     description = details.description || details.additional || addtl;
   }
 
+  // What the entry keeps is copied out of the document (see ownText); strings that repeat
+  // from entry to entry are shared through the statement's pool.
+  const texts = ctx.texts;
+  const share = (text: string): string => (texts ? texts.intern(text) : ownText(text));
+  const day = share(date);
   const entry: {
     -readonly [K in keyof StatementEntry]: StatementEntry[K];
   } = {
-    bookingDate: date,
+    bookingDate: day,
     amount,
-    description: description.trim(),
+    description: ownText(description.trim()),
     status,
     source: { line: ntry.line, element: path },
   };
-  if (valueDate !== undefined) entry.valueDate = valueDate;
-  if (details.counterparty) entry.counterparty = details.counterparty;
-  if (details.reference) entry.reference = details.reference;
-  if (bankRef) entry.bankRef = bankRef;
+  if (valueDate !== undefined) entry.valueDate = valueDate === date ? day : share(valueDate);
+  if (details.counterparty) entry.counterparty = share(details.counterparty);
+  if (details.reference) entry.reference = ownText(details.reference);
+  if (bankRef) entry.bankRef = ownText(bankRef);
   const typeCode = readTypeCode(ntry, ns);
-  if (typeCode) entry.typeCode = typeCode;
+  if (typeCode) entry.typeCode = share(typeCode);
   return entry;
 }
 

@@ -6,6 +6,7 @@
 import type { XmlElement } from '../xml';
 import {
   type ProblemCollector,
+  type TextPool,
   attr,
   child,
   clip,
@@ -27,6 +28,8 @@ export interface StatementContext {
   currency: string | undefined;
   /** Its minor-unit exponent; undefined while unknown or when the code is not ISO 4217. */
   exponent: number | undefined;
+  /** Shares the strings entries repeat (dates, counterparties, type codes); without it they are only copied. */
+  readonly texts?: TextPool;
 }
 
 /**

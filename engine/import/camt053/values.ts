@@ -266,6 +266,55 @@ export function attr(el: XmlElement, name: string): string | undefined {
   return undefined;
 }
 
+/** Shorter slices are copies already: V8 makes a sliced string only from 13 characters on. */
+const SHORTEST_SLICE = 13;
+/** Most char codes passed to one `String.fromCharCode` call. */
+const COPY_CHUNK = 8192;
+const copyCodes: number[] = [];
+
+/**
+ * A copy of `text` that owns its characters. Text the pull parser returns is cut from the
+ * document, and in V8 a cut of 13 characters or more is a sliced string that keeps the whole
+ * document alive: one kept description would hold a 64 MiB statement file in memory for as
+ * long as the import result lives. Strings the result keeps go through here. A concatenation
+ * is copied too (its parts may be such slices). O(length).
+ *
+ * @example ownText(documentText.slice(1000, 1030)) // the same 30 characters, without the document
+ */
+export function ownText(text: string): string {
+  const n = text.length;
+  if (n < SHORTEST_SLICE) return text;
+  if (n > COPY_CHUNK) return (' ' + text).slice(1); // the slice then points into the one-off concatenation
+  for (let i = 0; i < n; i++) copyCodes[i] = text.charCodeAt(i);
+  copyCodes.length = n;
+  return String.fromCharCode.apply(null, copyCodes);
+}
+
+/** Distinct strings a pool keeps at most; past that, text is only copied. */
+const POOL_LIMIT = 4096;
+
+/**
+ * Interns the short strings a statement repeats (dates, counterparties, type codes): each
+ * distinct value is kept once, as an `ownText` copy, and every entry shares it.
+ * @example const pool = new TextPool(); pool.intern('2025-03-01') === pool.intern('2025-03-01'.slice(0)) // true
+ */
+export class TextPool {
+  private readonly strings = new Map<string, string>();
+  private last = '';
+
+  /** The pooled copy of `text` (a repeat of the previous text costs one comparison). */
+  intern(text: string): string {
+    if (text === this.last) return this.last;
+    let kept = this.strings.get(text);
+    if (kept === undefined) {
+      kept = ownText(text);
+      if (this.strings.size < POOL_LIMIT) this.strings.set(kept, kept);
+    }
+    this.last = kept;
+    return kept;
+  }
+}
+
 /** Most problems of each severity listed one by one; the rest are summed up in one line. */
 const MAX_LISTED = 200;
 
@@ -326,13 +375,14 @@ export class ProblemCollector {
     message: string,
     severity: 'error' | 'notice',
   ): ImportProblem {
+    // Messages quote the document: copied, so that a problem does not keep the text alive.
     const p: { file: string; line?: number; element?: string; message: string; severity: 'error' | 'notice' } = {
       file: this.file,
-      message,
+      message: ownText(message),
       severity,
     };
     if (line !== undefined) p.line = line;
-    if (element !== undefined && element !== '') p.element = element;
+    if (element !== undefined && element !== '') p.element = ownText(element);
     return p;
   }
 }
