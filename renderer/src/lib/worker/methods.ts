@@ -23,6 +23,7 @@ import type { Ledger } from '../../../../engine/ledger/types';
 import { historyFromLedger, type ForecastHistory } from '../../../../engine/forecast/history';
 import { detectRecurringFlows, type DetectedRecurringFlow } from '../../../../engine/recurring/detectRecurringFlows';
 import { analysisMethods } from './analysisMethods';
+import { scenarioMethods } from './scenarioMethods';
 import { contentHash } from './contentHash';
 import type { MethodContext } from './protocol';
 
@@ -85,6 +86,7 @@ function storedLedger(stored: StoredFiles, context: MethodContext): Ledger {
 
 export const engineMethods = {
   ...analysisMethods,
+  ...scenarioMethods,
 
   /** Parses statement files; the caller decides whether to store them (all or nothing). */
   async parseStatements(params: { files: readonly ImportFileInput[] }, context: MethodContext): Promise<ParsedFile[]> {
