@@ -97,11 +97,19 @@ export async function openApp(page: Page): Promise<void> {
   await expect(nav(page)).toBeVisible();
 }
 
-/** Creates a workspace from the Workspaces screen and waits until it is the open one. */
+/**
+ * Creates a workspace from the Workspaces screen, sees the app open it on Accounts &
+ * statements, and comes back to the list with it marked as the open one.
+ */
 export async function createWorkspace(page: Page, name: string): Promise<Locator> {
   await goToScreen(page, 'Workspaces');
   await page.getByLabel('Name', { exact: true }).fill(name);
   await page.getByRole('button', { name: 'Create workspace' }).click();
+  await expect(page.getByTestId('current-workspace')).toContainText(name);
+  await expect(nav(page).getByRole('button', { name: 'Accounts & statements', exact: true })).toHaveAttribute(
+    'aria-current',
+    'page',
+  );
   await goToScreen(page, 'Workspaces');
   const row = workspaceRow(page, name);
   await expect(row).toHaveAttribute('data-current', 'true');
