@@ -15,6 +15,8 @@ export interface CliIo {
 export interface CliWrite {
   readonly path: string;
   readonly content: string;
+  /** `pdf`: `content` is HTML that the host prints to PDF at `path` (bin/ebbline.mjs uses Chromium). */
+  readonly as?: 'pdf';
 }
 
 /** Everything a run produces. Exit codes: 0 success, 2 bad input or usage, 1 internal error. */

@@ -345,7 +345,7 @@ describe('ebbline import --check: bad input', () => {
     const unknown = await run(['forecat', 'a.xml'], {});
     expect(unknown.exitCode).toBe(2);
     expect(unknown.stderr.split('\n')[0]).toBe(
-      'ebbline: unknown command "forecat", expected one of import, forecast, decompose',
+      'ebbline: unknown command "forecat", expected one of import, forecast, decompose, report',
     );
     const none = await run([], {});
     expect(none.exitCode).toBe(2);

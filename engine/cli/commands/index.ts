@@ -5,8 +5,9 @@
  */
 import type { CliCommand } from '../types';
 import { decomposeCommand } from './decompose';
+import { reportCommand } from './report';
 import { forecastCommand } from './forecast';
 import { importCommand } from './import';
 
 /** Every registered command. */
-export const COMMANDS: readonly CliCommand[] = [importCommand, forecastCommand, decomposeCommand];
+export const COMMANDS: readonly CliCommand[] = [importCommand, forecastCommand, decomposeCommand, reportCommand];
