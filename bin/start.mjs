@@ -26,13 +26,16 @@ const binary = electronBinary();
 if (binary && !process.argv.includes('--browser')) {
   run('npx', ['vite', 'build', '--config', 'renderer/vite.config.ts', '--logLevel', 'warn']);
   run('node', ['bin/build-main.mjs']);
-  const child = spawn(binary, ['.'], { cwd: root, stdio: 'inherit' });
+  const child = spawn(binary, ['.', ...process.argv.slice(2).filter((a) => a === '--demo')], {
+    cwd: root,
+    stdio: 'inherit',
+  });
   child.on('exit', (code) => process.exit(code ?? 0));
 } else {
   console.log(
     binary
       ? 'Starting in the browser as asked (--browser).'
-      : 'No Electron binary is installed here (it was skipped or could not be downloaded), so Ebbline opens in your browser instead. Your data stays in this browser profile on this machine.',
+      : 'No Electron binary is installed here (it was skipped or could not be downloaded), so Ebbline is served for your browser instead: open the address below. Your data stays in that browser profile on this machine.',
   );
   const child = spawn('node', ['bin/web.mjs', ...process.argv.slice(2).filter((a) => a !== '--browser')], {
     cwd: root,

@@ -13,7 +13,8 @@ if (!Number.isInteger(port) || port < 1 || port > 65535) {
 const configFile = new URL('../renderer/vite.config.ts', import.meta.url).pathname;
 if (!args.includes('--no-build')) await build({ configFile, logLevel: 'warn' });
 const server = await preview({ configFile, preview: { host: '127.0.0.1', port, strictPort: true } });
-console.log(`Ebbline is served at http://127.0.0.1:${port}/ (press Ctrl+C to stop)`);
+const address = `http://127.0.0.1:${port}/${args.includes('--demo') ? '?demo' : ''}`;
+console.log(`Ebbline is served at ${address} (press Ctrl+C to stop)`);
 const stop = () => server.httpServer.close(() => process.exit(0));
 process.on('SIGINT', stop);
 process.on('SIGTERM', stop);

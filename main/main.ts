@@ -91,7 +91,8 @@ function createWindow(): void {
   mainWindow.on('closed', () => {
     mainWindow = null;
   });
-  void mainWindow.loadURL(APP_ENTRY_URL);
+  // `npm start -- --demo`: open the demo workspace on the Outlook.
+  void mainWindow.loadURL(process.argv.includes('--demo') ? `${APP_ENTRY_URL}?demo` : APP_ENTRY_URL);
 }
 
 function setupMenu(): void {

@@ -118,3 +118,11 @@ test('after a reload the workspace, its accounts and its transactions are all st
   await expect(page.getByTestId('workspace-row')).toHaveCount(1);
   await expect(workspaceRow(page, DEMO_WORKSPACE)).toHaveAttribute('data-current', 'true');
 });
+
+test('the start address with ?demo opens the demo workspace on the Outlook (README quick start)', async ({ page }) => {
+  await page.goto('/?demo');
+  await expect(page.getByTestId('shortfall-probability')).toBeVisible({ timeout: 60_000 });
+  await expect(page.getByTestId('outlook-caution')).toBeVisible();
+  await expect(page).toHaveURL(/#\/outlook$/);
+  await expect(page.getByText(DEMO_WORKSPACE).first()).toBeVisible();
+});
