@@ -6,15 +6,16 @@
  */
 import type { CalendarDate } from '../../core/dates';
 
-/** One row as the check sees it (parallel arrays, file order). */
+/** One row as the check sees it (parallel arrays or typed arrays, file order). */
 export interface BalanceRows {
   /** Booking dates `YYYY-MM-DD`. */
-  readonly dates: readonly CalendarDate[];
-  readonly amounts: readonly number[];
+  readonly dates: ArrayLike<CalendarDate>;
+  readonly amounts: ArrayLike<number>;
   /** Stated balance in minor units, NaN where the cell is empty. */
-  readonly balances: readonly number[];
-  readonly pending: readonly boolean[];
-  readonly lines: readonly number[];
+  readonly balances: ArrayLike<number>;
+  /** True (or 1) for a pending row. */
+  readonly pending: ArrayLike<boolean | number>;
+  readonly lines: ArrayLike<number>;
 }
 
 /** A row whose stated balance does not follow from the one before. */
@@ -50,7 +51,7 @@ export const MAX_BALANCE_MISMATCHES = 20;
  */
 export function checkRunningBalance(
   rows: BalanceRows,
-  sequence: readonly number[],
+  sequence: ArrayLike<number>,
 ): { mismatches: BalanceMismatch[]; endOfDay: EndOfDayBalance[] } {
   const mismatches: BalanceMismatch[] = [];
   const endOfDay: EndOfDayBalance[] = [];
@@ -65,7 +66,8 @@ export function checkRunningBalance(
   const closeDay = (): void => {
     if (!Number.isNaN(dayBalance)) endOfDay.push({ day: currentDay, amount: dayBalance + afterBalance, line: dayLine });
   };
-  for (const k of sequence) {
+  for (let s = 0; s < sequence.length; s++) {
+    const k = sequence[s] as number;
     if (rows.pending[k]) continue;
     const day = rows.dates[k] as string;
     if (day !== currentDay) {

@@ -228,13 +228,23 @@ function groupClass(c: number): number {
  */
 export function inspectAmount(text: string, start = 0, end = text.length): AmountInspection {
   const r = inspection;
+  resetInspection(r);
+  if (!readAffixes(text, start, end)) return r;
+  inspectBody(text, r);
+  return r;
+}
+
+function resetInspection(r: AmountInspection): void {
   r.ok = false;
   r.evidence = 0;
   r.currency = '';
   r.parentheses = false;
   r.trailingMinus = false;
   r.thousands = '';
-  if (!readAffixes(text, start, end)) return r;
+}
+
+/** `inspectAmount` after `readAffixes` succeeded: the body between the affixes. */
+function inspectBody(text: string, r: AmountInspection): void {
   r.currency = currency;
   r.parentheses = parentheses;
   r.trailingMinus = trailingMinus;
@@ -255,9 +265,9 @@ export function inspectAmount(text: string, start = 0, end = text.length): Amoun
     } else if (isGroupChar(c)) {
       other++;
       if (r.thousands === '') r.thousands = text[k] as string;
-    } else return r;
+    } else return;
   }
-  if (!isDigit(text.charCodeAt(bodyEnd - 1))) return r;
+  if (!isDigit(text.charCodeAt(bodyEnd - 1))) return;
   r.ok = true;
   if (points > 0 && commas > 0) {
     const decimalIsComma = lastComma > lastPoint;
@@ -265,23 +275,22 @@ export function inspectAmount(text: string, start = 0, end = text.length): Amoun
       r.evidence = decimalIsComma ? 1 : 2;
       if (r.thousands === '') r.thousands = decimalIsComma ? '.' : ',';
     }
-    return r;
+    return;
   }
-  if (points + commas === 0) return r;
+  if (points + commas === 0) return;
   const isComma = commas > 0;
   const count = isComma ? commas : points;
   const last = isComma ? lastComma : lastPoint;
   if (count > 1) {
     r.evidence = isComma ? 2 : 1;
     if (r.thousands === '') r.thousands = isComma ? ',' : '.';
-    return r;
+    return;
   }
   const after = bodyEnd - last - 1;
   const before = last - bodyStart;
   const leadingZero = before === 1 && text.charCodeAt(bodyStart) === 0x30;
   if (after === 3 && before >= 1 && before <= 3 && other === 0 && !leadingZero) r.evidence = isComma ? 3 : 4;
   else r.evidence = isComma ? 1 : 2;
-  return r;
 }
 
 function example(format: CsvNumberFormat): string {
@@ -309,11 +318,48 @@ export function readAmount(
   start = 0,
   end = text.length,
 ): number | string {
-  if (!readAffixes(text, start, end)) {
-    return affixProblem === 'is not a number'
-      ? `is not a number, expected a number like ${example(format)}`
-      : affixProblem;
-  }
+  if (!readAffixes(text, start, end)) return affixMessage(format);
+  return readBody(text, format, exponent, currencyCode);
+}
+
+function affixMessage(format: CsvNumberFormat): string {
+  return affixProblem === 'is not a number'
+    ? `is not a number, expected a number like ${example(format)}`
+    : affixProblem;
+}
+
+/**
+ * `inspectAmount` and `readAmount` of one cell with a single pass over its affixes: the
+ * inspection is written to the shared object `inspectAmount` returns (read it through
+ * `lastInspection()`), the minor units (or what is wrong) are returned. For a file's row
+ * pass, which needs both the evidence for the number format and the value.
+ *
+ * @example
+ * inspectAndReadAmount('1.234,56', 0, 8, { decimal: ',' }, 2, 'EUR'); // 123456
+ * lastInspection().evidence // 1
+ */
+export function inspectAndReadAmount(
+  text: string,
+  start: number,
+  end: number,
+  format: CsvNumberFormat,
+  exponent: number,
+  currencyCode: string,
+): number | string {
+  const r = inspection;
+  resetInspection(r);
+  if (!readAffixes(text, start, end)) return affixMessage(format);
+  inspectBody(text, r);
+  return readBody(text, format, exponent, currencyCode);
+}
+
+/** The inspection `inspectAndReadAmount` (or `inspectAmount`) wrote last. */
+export function lastInspection(): AmountInspection {
+  return inspection;
+}
+
+/** `readAmount` after `readAffixes` succeeded: the body between the affixes. */
+function readBody(text: string, format: CsvNumberFormat, exponent: number, currencyCode: string): number | string {
   const dec = format.decimal === ',' ? 0x2c : 0x2e;
   const allowed =
     format.thousands === undefined ? -1 : format.thousands === '' ? -2 : groupClass(format.thousands.charCodeAt(0));

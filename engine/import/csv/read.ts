@@ -4,7 +4,7 @@
  * One function produces both the import result and the layout detection, so the preview
  * and the import can never disagree.
  */
-import { minorUnitExponent } from '../../core/currency';
+import { isKnownCurrency, minorUnitExponent } from '../../core/currency';
 import type { CalendarDate } from '../../core/dates';
 import type {
   ImportOptions,
@@ -24,6 +24,7 @@ import {
   parseDateCell,
   parseDateFormatName,
   type CsvDateFormat,
+  type DateFormatInference,
 } from './dates';
 import type { CsvDetectedColumn, CsvLayoutDetection, CsvSampleRow } from './detection';
 import { csvLayoutFingerprint } from './fingerprint';
@@ -48,7 +49,10 @@ import {
 import {
   formatForMessage,
   inspectAmount,
+  inspectAndReadAmount,
+  lastInspection,
   readAmount,
+  type AmountInspection,
   type CsvNumberFormat,
   type DecimalSeparator,
   type ThousandsSeparator,
@@ -463,9 +467,22 @@ interface Evidence {
   thousands: string;
 }
 
-/** Step 3: currency, account column, number and date formats. */
-function formatStep(reading: Reading): boolean {
-  const { table, problems, mapping, preamble } = reading;
+/** What the format step gathers row by row before it decides (see `gatherRow`, `decideFormats`). */
+interface FormatGathering {
+  readonly ev: Evidence;
+  readonly dates: DateFormatInference;
+  /** Amount, debit, credit and balance columns, in the order their cells are inspected. */
+  readonly amountCols: readonly number[];
+  readonly span: CellSpan;
+  acceptedCurrency: string;
+  accountValue: string | undefined;
+  accountRaw: string;
+  accountLine: number;
+}
+
+/** Step 3 begins: the preamble's currency, and empty evidence. */
+function startFormats(reading: Reading): FormatGathering {
+  const { problems, preamble } = reading;
   const columns = reading.columns as Columns;
   const currencies = reading.currencies;
   if (preamble.currency !== undefined) {
@@ -476,77 +493,98 @@ function formatStep(reading: Reading): boolean {
     const m = currencies.note(preamble.conflictingCurrency.code, preamble.conflictingCurrency.line, 'preamble');
     if (m) problems.error(preamble.conflictingCurrency.line, m);
   }
-  const ev: Evidence = {
-    comma: 0,
-    point: 0,
-    maybeComma: 0,
-    maybePoint: 0,
-    parentheses: 0,
-    trailingMinus: 0,
-    thousands: '',
-  };
   const amountCols: number[] = [];
   for (const c of [columns.amount, columns.debit, columns.credit, columns.balance])
     if (c !== undefined) amountCols.push(c);
-  const dates = createDateFormatInference();
-  const span: CellSpan = { text: '', start: 0, end: 0 };
-  let acceptedCurrency = '';
-  let accountValue: string | undefined;
-  let accountRaw = '';
-  let accountLine = 0;
-  for (const r of reading.rows) {
-    const line = lineOf(reading, r);
-    if (columns.currency !== undefined) {
-      cellSpan(table, r, columns.currency, span);
-      if (span.end > span.start && !spanIs(span, acceptedCurrency)) {
-        const cell = span.text.slice(span.start, span.end);
-        const m = currencies.note(cell, line, 'currency column');
-        if (m) problems.error(line, m);
-        else acceptedCurrency = cell;
-      }
-    }
-    if (columns.account !== undefined) {
-      cellSpan(table, r, columns.account, span);
-      if (span.end > span.start && !spanIs(span, accountRaw)) {
-        const raw = span.text.slice(span.start, span.end);
-        const value = normaliseAccountIdentifier(raw);
-        if (accountValue === undefined) {
-          accountValue = value;
-          accountRaw = raw;
-          accountLine = line;
-        } else if (value !== accountValue) {
-          problems.error(
-            line,
-            `account "${value}" differs from "${accountValue}" on line ${accountLine}, expected one account per file`,
-          );
-        }
-      }
-    }
-    for (const c of amountCols) {
-      cellSpan(table, r, c, span);
-      if (span.end === span.start) continue;
-      const info = inspectAmount(span.text, span.start, span.end);
-      if (!info.ok) continue;
-      if (info.evidence === 1) ev.comma++;
-      else if (info.evidence === 2) ev.point++;
-      else if (info.evidence === 3) ev.maybeComma++;
-      else if (info.evidence === 4) ev.maybePoint++;
-      if (info.parentheses) ev.parentheses++;
-      if (info.trailingMinus) ev.trailingMinus++;
-      if (ev.thousands === '' && info.thousands !== '') ev.thousands = info.thousands;
-      if (info.currency !== '') {
-        const m = currencies.note(info.currency, line, 'amount cell');
-        if (m) problems.error(line, m);
-      }
-    }
-    cellSpan(table, r, columns.date, span);
-    dates.add(span.text, line, span.start, span.end);
-    if (columns.valueDate !== undefined) {
-      cellSpan(table, r, columns.valueDate, span);
-      dates.add(span.text, line, span.start, span.end);
+  return {
+    ev: { comma: 0, point: 0, maybeComma: 0, maybePoint: 0, parentheses: 0, trailingMinus: 0, thousands: '' },
+    dates: createDateFormatInference(),
+    amountCols,
+    span: { text: '', start: 0, end: 0 },
+    acceptedCurrency: '',
+    accountValue: undefined,
+    accountRaw: '',
+    accountLine: 0,
+  };
+}
+
+/** The currency and account cells of row r (the part of `gatherRow` before the amounts). */
+function gatherCodes(reading: Reading, g: FormatGathering, r: number, line: number): void {
+  const { table, problems } = reading;
+  const columns = reading.columns as Columns;
+  const span = g.span;
+  if (columns.currency !== undefined) {
+    cellSpan(table, r, columns.currency, span);
+    if (span.end > span.start && !spanIs(span, g.acceptedCurrency)) {
+      const cell = span.text.slice(span.start, span.end);
+      const m = reading.currencies.note(cell, line, 'currency column');
+      if (m) problems.error(line, m);
+      else g.acceptedCurrency = cell;
     }
   }
-  reading.account = accountValue;
+  if (columns.account !== undefined) {
+    cellSpan(table, r, columns.account, span);
+    if (span.end > span.start && !spanIs(span, g.accountRaw)) {
+      const raw = span.text.slice(span.start, span.end);
+      const value = normaliseAccountIdentifier(raw);
+      if (g.accountValue === undefined) {
+        g.accountValue = value;
+        g.accountRaw = raw;
+        g.accountLine = line;
+      } else if (value !== g.accountValue) {
+        problems.error(
+          line,
+          `account "${value}" differs from "${g.accountValue}" on line ${g.accountLine}, expected one account per file`,
+        );
+      }
+    }
+  }
+}
+
+/** Counts what one inspected amount cell says about the number format. */
+function noteAmount(reading: Reading, g: FormatGathering, info: AmountInspection, line: number): void {
+  if (!info.ok) return;
+  const ev = g.ev;
+  if (info.evidence === 1) ev.comma++;
+  else if (info.evidence === 2) ev.point++;
+  else if (info.evidence === 3) ev.maybeComma++;
+  else if (info.evidence === 4) ev.maybePoint++;
+  if (info.parentheses) ev.parentheses++;
+  if (info.trailingMinus) ev.trailingMinus++;
+  if (ev.thousands === '' && info.thousands !== '') ev.thousands = info.thousands;
+  if (info.currency !== '') {
+    const m = reading.currencies.note(info.currency, line, 'amount cell');
+    if (m) reading.problems.error(line, m);
+  }
+}
+
+/** Everything step 3 looks at in row r. */
+function gatherRow(reading: Reading, g: FormatGathering, r: number): void {
+  const { table } = reading;
+  const columns = reading.columns as Columns;
+  const span = g.span;
+  const line = lineOf(reading, r);
+  gatherCodes(reading, g, r, line);
+  for (const c of g.amountCols) {
+    cellSpan(table, r, c, span);
+    if (span.end === span.start) continue;
+    noteAmount(reading, g, inspectAmount(span.text, span.start, span.end), line);
+  }
+  cellSpan(table, r, columns.date, span);
+  g.dates.add(span.text, line, span.start, span.end);
+  if (columns.valueDate !== undefined) {
+    cellSpan(table, r, columns.valueDate, span);
+    g.dates.add(span.text, line, span.start, span.end);
+  }
+}
+
+/** Step 3 ends: currency, number and date formats from everything gathered. False when rows cannot be read. */
+function decideFormats(reading: Reading, g: FormatGathering): boolean {
+  const { table, problems, mapping } = reading;
+  const columns = reading.columns as Columns;
+  const currencies = reading.currencies;
+  const ev = g.ev;
+  reading.account = g.accountValue;
 
   // Currency: the file's statements, then the caller's option.
   const stated = currencies.stated;
@@ -571,13 +609,7 @@ function formatStep(reading: Reading): boolean {
   const exponent = reading.currency !== undefined ? minorUnitExponent(reading.currency) : undefined;
 
   // Numbers: the decimal separator all rows agree on.
-  if (mapping?.decimalSeparator) reading.decimal = mapping.decimalSeparator;
-  else if (ev.comma > 0 || ev.point > 0) reading.decimal = ev.comma >= ev.point ? ',' : '.';
-  else if (ev.maybeComma > 0 || ev.maybePoint > 0) {
-    // "1,234" alone: a currency with three decimals writes them; others group thousands.
-    const maybe: DecimalSeparator = ev.maybeComma >= ev.maybePoint ? ',' : '.';
-    reading.decimal = exponent === 3 ? maybe : maybe === ',' ? '.' : ',';
-  } else reading.decimal = reading.delimiter === ';' ? ',' : '.';
+  reading.decimal = decimalFrom(ev, mapping, exponent, reading.delimiter);
   const seen = mapping?.thousandsSeparator ?? ev.thousands;
   reading.thousandsSeen = (
     seen === '\u2019' ? "'" : seen === '\u2009' ? ' ' : seen === '\t' ? ' ' : seen
@@ -602,7 +634,7 @@ function formatStep(reading: Reading): boolean {
   if (mapping?.dateFormat !== undefined) {
     reading.dateFormat = parseDateFormatName(mapping.dateFormat);
   } else {
-    const inferred = dates.result();
+    const inferred = g.dates.result();
     reading.dateAmbiguous = inferred.ambiguous;
     if (inferred.problem) {
       problems.error(inferred.problem.line, inferred.problem.message);
@@ -622,14 +654,65 @@ function formatStep(reading: Reading): boolean {
   return exponent !== undefined;
 }
 
-/** Per-row data kept for the order and balance steps (parallel arrays). */
+/** The decimal separator the evidence (or the mapping) gives. */
+function decimalFrom(
+  ev: Evidence,
+  mapping: CsvMapping | undefined,
+  exponent: number | undefined,
+  delimiter: CsvDelimiter,
+): DecimalSeparator {
+  if (mapping?.decimalSeparator) return mapping.decimalSeparator;
+  if (ev.comma > 0 || ev.point > 0) return ev.comma >= ev.point ? ',' : '.';
+  if (ev.maybeComma > 0 || ev.maybePoint > 0) {
+    // "1,234" alone: a currency with three decimals writes them; others group thousands.
+    const maybe: DecimalSeparator = ev.maybeComma >= ev.maybePoint ? ',' : '.';
+    return exponent === 3 ? maybe : maybe === ',' ? '.' : ',';
+  }
+  return delimiter === ';' ? ',' : '.';
+}
+
+/** Step 3 on its own: currency, account column, number and date formats from all rows. */
+function formatStep(reading: Reading): boolean {
+  const g = startFormats(reading);
+  for (const r of reading.rows) gatherRow(reading, g, r);
+  return decideFormats(reading, g);
+}
+
+/** Per-row data kept for the order and balance steps (parallel arrays of `count` rows). */
 interface RowData {
   entries: StatementEntry[];
   dates: CalendarDate[];
-  amounts: number[];
-  balances: number[];
-  pending: boolean[];
-  lines: number[];
+  amounts: Float64Array;
+  balances: Float64Array;
+  pending: Uint8Array;
+  lines: Int32Array;
+  count: number;
+}
+
+function emptyRowData(capacity: number): RowData {
+  return {
+    entries: [],
+    dates: [],
+    amounts: new Float64Array(capacity),
+    balances: new Float64Array(capacity),
+    pending: new Uint8Array(capacity),
+    lines: new Int32Array(capacity),
+    count: 0,
+  };
+}
+
+/** The filled part of the typed arrays. */
+function trimmed(data: RowData): RowData {
+  const n = data.count;
+  return {
+    entries: data.entries,
+    dates: data.dates,
+    amounts: data.amounts.subarray(0, n),
+    balances: data.balances.subarray(0, n),
+    pending: data.pending.subarray(0, n),
+    lines: data.lines.subarray(0, n),
+    count: n,
+  };
 }
 
 /** True when the span holds exactly `value` (compared in place, nothing cut out). */
@@ -641,25 +724,54 @@ function spanText(span: CellSpan): string {
   return span.text.slice(span.start, span.end);
 }
 
-/** Step 4: every row to an entry. */
-function rowStep(reading: Reading): RowData {
-  const { table, problems, mapping } = reading;
+/** The formats rows are converted with. */
+interface RowFormats {
+  readonly date: CsvDateFormat;
+  readonly currency: string;
+  readonly decimal: DecimalSeparator;
+}
+
+/** Where problems of the row conversion go: the file's collector, or a trial run's tally. */
+interface ErrorSink {
+  readonly errorCount: number;
+  error(line: number | undefined, message: string): void;
+}
+
+/**
+ * The per-row conversion of step 4, shared by the plain row pass and the combined pass:
+ * `dateAt`, `amountAt` read one cell (or report it); `finish` turns a row whose dates and
+ * amounts are read into an entry (descriptions, optional columns) and appends it to `data`.
+ */
+interface RowConverter {
+  readonly span: CellSpan;
+  /** Reads the date in column `col` of row r; `label` names it in messages. */
+  dateAt(r: number, col: number, line: number, label?: string): CalendarDate | undefined;
+  /** Reads the amount now in `span`, or reports it. */
+  amountIn(label: string, line: number): number | undefined;
+  /** Reads status and balance, builds the entry and keeps it unless the row had errors. */
+  finish(
+    r: number,
+    line: number,
+    errorsBefore: number,
+    bookingDate: CalendarDate | undefined,
+    valueDate: CalendarDate | undefined,
+    amount: number | undefined,
+  ): void;
+}
+
+function createRowConverter(reading: Reading, formats: RowFormats, sink: ErrorSink, data: RowData): RowConverter {
+  const { table, mapping } = reading;
   const columns = reading.columns as Columns;
-  const format = reading.dateFormat as CsvDateFormat;
-  const currency = reading.currency ?? 'EUR';
+  const { date: format, currency, decimal } = formats;
   const exponent = minorUnitExponent(currency) ?? 2;
   const numbers: CsvNumberFormat =
-    mapping?.thousandsSeparator !== undefined
-      ? { decimal: reading.decimal as DecimalSeparator, thousands: mapping.thousandsSeparator }
-      : { decimal: reading.decimal as DecimalSeparator };
-  const negate = mapping?.negateAmounts === true;
-  const data: RowData = { entries: [], dates: [], amounts: [], balances: [], pending: [], lines: [] };
+    mapping?.thousandsSeparator !== undefined ? { decimal, thousands: mapping.thousandsSeparator } : { decimal };
   const span: CellSpan = { text: '', start: 0, end: 0 };
-  /** Reads the amount in `span`, or reports it. */
+  const description = columns.description;
   const amountIn = (label: string, line: number): number | undefined => {
     const value = readAmount(span.text, numbers, exponent, currency, span.start, span.end);
     if (typeof value === 'string') {
-      problems.error(line, `${label} "${spanText(span)}" ${value}`);
+      sink.error(line, `${label} "${spanText(span)}" ${value}`);
       return undefined;
     }
     return value;
@@ -672,35 +784,114 @@ function rowStep(reading: Reading): RowData {
     const text = spanText(span).trim();
     return text === '' ? undefined : text;
   };
-  const description = columns.description;
-  // Indicator and status cells repeat a few words: decide each distinct word once.
-  let lastMark = '';
-  let lastSign: -1 | 0 | 1 = 0;
+  // Status cells repeat a few words: decide each distinct word once.
   let lastStatusText = '';
   let lastStatus: 'booked' | 'pending' | undefined = 'booked';
+  return {
+    span,
+    amountIn,
+    dateAt(r, col, line, label) {
+      cellSpan(table, r, col, span);
+      if (label !== undefined && span.end === span.start) return undefined;
+      const date = parseDateCell(span.text, format, span.start, span.end);
+      if (date === undefined) sink.error(line, describeDateError(cellAt(table, r, col), format, label));
+      return date;
+    },
+    finish(r, line, errorsBefore, bookingDate, valueDate, amount) {
+      let pending = false;
+      if (columns.status !== undefined) {
+        cellSpan(table, r, columns.status, span);
+        if (span.end === span.start) lastStatus = 'booked';
+        else if (!spanIs(span, lastStatusText)) {
+          lastStatusText = spanText(span);
+          lastStatus = bookingStatus(lastStatusText);
+        }
+        if (lastStatus === undefined) {
+          sink.error(
+            line,
+            `status "${spanText(span)}" is not a known booking status, expected booked or pending (or no status column in csvMapping)`,
+          );
+        } else pending = lastStatus === 'pending';
+        if (span.end === span.start) lastStatusText = '';
+      }
+      let balance = Number.NaN;
+      if (columns.balance !== undefined) {
+        cellSpan(table, r, columns.balance, span);
+        if (span.end > span.start) balance = amountIn('balance', line) ?? Number.NaN;
+      }
+      if (sink.errorCount > errorsBefore || bookingDate === undefined || amount === undefined) return;
+      let text = '';
+      for (const c of description) {
+        const part = optional(r, c);
+        if (part !== undefined) text = text === '' ? part : `${text} ${part}`;
+      }
+      const counterparty = optional(r, columns.counterparty);
+      const status = pending ? 'pending' : 'booked';
+      const source = { line };
+      // The common shapes are built whole: adding properties one by one would give most entries
+      // a separate property store. The key order is the same either way.
+      let entry: { -readonly [K in keyof StatementEntry]: StatementEntry[K] };
+      if (valueDate === undefined) {
+        entry =
+          counterparty === undefined
+            ? { bookingDate, amount, description: text, status, source }
+            : { bookingDate, amount, description: text, status, source, counterparty };
+      } else {
+        entry =
+          counterparty === undefined
+            ? { bookingDate, amount, description: text, status, source, valueDate }
+            : { bookingDate, amount, description: text, status, source, valueDate, counterparty };
+      }
+      const reference = optional(r, columns.reference);
+      if (reference !== undefined) entry.reference = reference;
+      const bankRef = optional(r, columns.bankRef);
+      if (bankRef !== undefined) entry.bankRef = bankRef;
+      const typeCode = optional(r, columns.type);
+      if (typeCode !== undefined) entry.typeCode = typeCode;
+      const k = data.count++;
+      data.entries.push(entry);
+      data.dates.push(bookingDate);
+      data.amounts[k] = amount;
+      data.balances[k] = balance;
+      data.pending[k] = pending ? 1 : 0;
+      data.lines[k] = line;
+    },
+  };
+}
+
+/** Step 4 on its own: every row to an entry, problems to the file's collector. */
+function rowStep(reading: Reading): RowData {
+  const { table, problems, mapping } = reading;
+  const columns = reading.columns as Columns;
+  const data = emptyRowData(reading.rows.length);
+  const convert = createRowConverter(
+    reading,
+    {
+      date: reading.dateFormat as CsvDateFormat,
+      currency: reading.currency ?? 'EUR',
+      decimal: reading.decimal as DecimalSeparator,
+    },
+    problems,
+    data,
+  );
+  const { span, amountIn } = convert;
+  const negate = mapping?.negateAmounts === true;
+  // Indicator cells repeat a few words: decide each distinct word once.
+  let lastMark = '';
+  let lastSign: -1 | 0 | 1 = 0;
   for (const r of reading.rows) {
     const line = lineOf(reading, r);
     const errorsBefore = problems.errorCount;
-    cellSpan(table, r, columns.date, span);
-    const bookingDate = parseDateCell(span.text, format, span.start, span.end);
-    if (bookingDate === undefined) problems.error(line, describeDateError(cellAt(table, r, columns.date), format));
-    let valueDate: CalendarDate | undefined;
-    if (columns.valueDate !== undefined) {
-      cellSpan(table, r, columns.valueDate, span);
-      if (span.end > span.start) {
-        valueDate = parseDateCell(span.text, format, span.start, span.end);
-        if (valueDate === undefined) {
-          problems.error(line, describeDateError(cellAt(table, r, columns.valueDate), format, 'value date'));
-        }
-      }
-    }
+    const bookingDate = convert.dateAt(r, columns.date, line);
+    const valueDate =
+      columns.valueDate !== undefined ? convert.dateAt(r, columns.valueDate, line, 'value date') : undefined;
     let amount: number | undefined;
     if (columns.amount !== undefined) {
       cellSpan(table, r, columns.amount, span);
       if (span.end === span.start) {
         problems.error(
           line,
-          `amount is empty, expected a number like ${formatForMessage(-123456, 2, numbers.decimal)}`,
+          `amount is empty, expected a number like ${formatForMessage(-123456, 2, reading.decimal as DecimalSeparator)}`,
         );
       } else amount = amountIn('amount', line);
       if (amount !== undefined && columns.indicator !== undefined) {
@@ -741,53 +932,166 @@ function rowStep(reading: Reading): RowData {
       else if (debit !== undefined) amount = 0;
     }
     if (amount !== undefined && negate && amount !== 0) amount = -amount;
-    let pending = false;
-    if (columns.status !== undefined) {
-      cellSpan(table, r, columns.status, span);
-      if (span.end === span.start) lastStatus = 'booked';
-      else if (!spanIs(span, lastStatusText)) {
-        lastStatusText = spanText(span);
-        lastStatus = bookingStatus(lastStatusText);
-      }
-      if (lastStatus === undefined) {
-        problems.error(
-          line,
-          `status "${spanText(span)}" is not a known booking status, expected booked or pending (or no status column in csvMapping)`,
-        );
-      } else pending = lastStatus === 'pending';
-      if (span.end === span.start) lastStatusText = '';
-    }
-    let balance = Number.NaN;
-    if (columns.balance !== undefined) {
-      cellSpan(table, r, columns.balance, span);
-      if (span.end > span.start) balance = amountIn('balance', line) ?? Number.NaN;
-    }
-    if (problems.errorCount > errorsBefore || bookingDate === undefined || amount === undefined) continue;
-    let text = '';
-    for (const c of description) {
-      const part = optional(r, c);
-      if (part !== undefined) text = text === '' ? part : `${text} ${part}`;
-    }
-    const entry: {
-      -readonly [K in keyof StatementEntry]: StatementEntry[K];
-    } = { bookingDate, amount, description: text, status: pending ? 'pending' : 'booked', source: { line } };
-    if (valueDate !== undefined) entry.valueDate = valueDate;
-    const counterparty = optional(r, columns.counterparty);
-    if (counterparty !== undefined) entry.counterparty = counterparty;
-    const reference = optional(r, columns.reference);
-    if (reference !== undefined) entry.reference = reference;
-    const bankRef = optional(r, columns.bankRef);
-    if (bankRef !== undefined) entry.bankRef = bankRef;
-    const typeCode = optional(r, columns.type);
-    if (typeCode !== undefined) entry.typeCode = typeCode;
-    data.entries.push(entry);
-    data.dates.push(bookingDate);
-    data.amounts.push(amount);
-    data.balances.push(balance);
-    data.pending.push(pending);
-    data.lines.push(line);
+    convert.finish(r, line, errorsBefore, bookingDate, valueDate, amount);
   }
-  return data;
+  return trimmed(data);
+}
+
+/**
+ * Rows the combined pass reads: one signed amount column (no indicator, no debit and
+ * credit columns). Other layouts take the plain steps 3 and 4.
+ */
+function combinable(columns: Columns): boolean {
+  return columns.amount !== undefined && columns.indicator === undefined && columns.debit === undefined;
+}
+
+/** Rows looked at to guess the formats before the combined pass. */
+const GUESS_ROWS = 256;
+
+/**
+ * The formats step 3 will most likely decide, from the first rows and without reporting
+ * anything: the currency stated first (column name, preamble, currency cells, amount cells,
+ * then the caller's option), the decimal separator and the date format. Undefined when the
+ * first rows settle no date format or no currency.
+ */
+function guessFormats(reading: Reading): RowFormats | undefined {
+  const { table, mapping, preamble, options } = reading;
+  const columns = reading.columns as Columns;
+  const rows = reading.rows;
+  const last = Math.min(rows.length, GUESS_ROWS);
+  const span: CellSpan = { text: '', start: 0, end: 0 };
+  let currency = reading.currencies.stated?.code;
+  const known = (code: string | undefined): string | undefined => {
+    const c = code?.trim().toUpperCase();
+    return c !== undefined && c !== '' && isKnownCurrency(c) ? c : undefined;
+  };
+  currency ??= known(preamble.currency);
+  const ev: Evidence = {
+    comma: 0,
+    point: 0,
+    maybeComma: 0,
+    maybePoint: 0,
+    parentheses: 0,
+    trailingMinus: 0,
+    thousands: '',
+  };
+  const dates = createDateFormatInference();
+  for (let k = 0; k < last; k++) {
+    const r = rows[k] as number;
+    if (currency === undefined && columns.currency !== undefined) {
+      cellSpan(table, r, columns.currency, span);
+      currency = known(spanText(span));
+    }
+    for (const c of [columns.amount, columns.balance]) {
+      if (c === undefined) continue;
+      cellSpan(table, r, c, span);
+      if (span.end === span.start) continue;
+      const info = inspectAmount(span.text, span.start, span.end);
+      if (!info.ok) continue;
+      if (info.evidence === 1) ev.comma++;
+      else if (info.evidence === 2) ev.point++;
+      else if (info.evidence === 3) ev.maybeComma++;
+      else if (info.evidence === 4) ev.maybePoint++;
+      if (currency === undefined && info.currency !== '') currency = known(info.currency);
+    }
+    cellSpan(table, r, columns.date, span);
+    dates.add(span.text, 0, span.start, span.end);
+    if (columns.valueDate !== undefined) {
+      cellSpan(table, r, columns.valueDate, span);
+      dates.add(span.text, 0, span.start, span.end);
+    }
+  }
+  currency ??= known(options.currency);
+  if (currency === undefined) return undefined;
+  const date = mapping?.dateFormat !== undefined ? parseDateFormatName(mapping.dateFormat) : dates.result().format;
+  if (date === undefined) return undefined;
+  return { date, currency, decimal: decimalFrom(ev, mapping, minorUnitExponent(currency), reading.delimiter) };
+}
+
+/**
+ * Steps 3 and 4 in one pass over the rows, for the usual layout (`combinable`): each row's
+ * cells are looked at once, for the format evidence and for the conversion with the formats
+ * guessed from the first rows (`guessFormats`), each amount cell with a single read of its
+ * signs and symbols (`inspectAndReadAmount`). When the formats decided from all rows are the
+ * guessed ones and no row had a problem, the converted rows are the result; otherwise (a
+ * wrong guess, or rows to report) they are dropped and step 4 runs on its own with the
+ * decided formats, so the outcome and the problems are always those of steps 3 and 4 run
+ * one after the other.
+ *
+ * @returns the rows, or undefined when step 3 refuses the rows (then there is no step 4).
+ */
+function formatAndRowStep(reading: Reading): RowData | undefined {
+  const columns = reading.columns as Columns;
+  const guess = combinable(columns) ? guessFormats(reading) : undefined;
+  if (guess === undefined) return formatStep(reading) ? rowStep(reading) : undefined;
+
+  const { table, mapping } = reading;
+  const g = startFormats(reading);
+  const data = emptyRowData(reading.rows.length);
+  let trialErrors = 0;
+  const trial: ErrorSink = {
+    get errorCount() {
+      return trialErrors;
+    },
+    error() {
+      trialErrors++;
+    },
+  };
+  const convert = createRowConverter(reading, guess, trial, data);
+  const span = convert.span;
+  const exponent = minorUnitExponent(guess.currency) ?? 2;
+  const numbers: CsvNumberFormat =
+    mapping?.thousandsSeparator !== undefined
+      ? { decimal: guess.decimal, thousands: mapping.thousandsSeparator }
+      : { decimal: guess.decimal };
+  const negate = mapping?.negateAmounts === true;
+  const amountCol = columns.amount as number;
+  const balanceCol = columns.balance;
+  const valueCol = columns.valueDate;
+  for (const r of reading.rows) {
+    const line = lineOf(reading, r);
+    // Step 3's look at the row, in its order: codes, amount cells, dates.
+    gatherCodes(reading, g, r, line);
+    cellSpan(table, r, amountCol, span);
+    let amount: number | string | undefined;
+    if (span.end > span.start) {
+      amount = inspectAndReadAmount(span.text, span.start, span.end, numbers, exponent, guess.currency);
+      noteAmount(reading, g, lastInspection(), line);
+    }
+    if (balanceCol !== undefined) {
+      cellSpan(table, r, balanceCol, span);
+      if (span.end > span.start) noteAmount(reading, g, inspectAmount(span.text, span.start, span.end), line);
+    }
+    cellSpan(table, r, columns.date, span);
+    g.dates.add(span.text, line, span.start, span.end);
+    const bookingDate = trialErrors === 0 ? parseDateCell(span.text, guess.date, span.start, span.end) : undefined;
+    let valueDate: CalendarDate | undefined;
+    if (valueCol !== undefined) {
+      cellSpan(table, r, valueCol, span);
+      g.dates.add(span.text, line, span.start, span.end);
+      if (span.end > span.start && trialErrors === 0) {
+        valueDate = parseDateCell(span.text, guess.date, span.start, span.end);
+        if (valueDate === undefined) trialErrors++;
+      }
+    }
+    if (trialErrors > 0) continue;
+    // Step 4 with the guessed formats; any problem ends the trial.
+    if (bookingDate === undefined || typeof amount !== 'number') {
+      trialErrors++;
+      continue;
+    }
+    convert.finish(r, line, 0, bookingDate, valueDate, negate && amount !== 0 ? -amount : amount);
+  }
+  if (!decideFormats(reading, g)) return undefined;
+  const decided = reading.dateFormat as CsvDateFormat;
+  const same =
+    trialErrors === 0 &&
+    reading.currency === guess.currency &&
+    reading.decimal === guess.decimal &&
+    decided.order === guess.date.order &&
+    decided.separator === guess.date.separator &&
+    decided.twoDigitYear === guess.date.twoDigitYear;
+  return same ? trimmed(data) : rowStep(reading);
 }
 
 function mismatchMessage(m: BalanceMismatch, exponent: number, decimal: DecimalSeparator): string {
@@ -1021,7 +1325,10 @@ export function readCsvStatement(text: string, options: ImportOptions): CsvReadO
     } else {
       scanStep(reading, text);
       // Rows are converted whenever the formats are known, so one report lists every bad row.
-      if (layoutStep(reading) && formatStep(reading)) statementStep(reading, rowStep(reading));
+      if (layoutStep(reading)) {
+        const rows = formatAndRowStep(reading);
+        if (rows) statementStep(reading, rows);
+      }
     }
   }
   problems.finish();

@@ -44,19 +44,11 @@ const CR = 0x0d;
 const SPACE = 0x20;
 const TAB = 0x09;
 
-/** A growable Int32Array. */
-interface IntBuffer {
-  data: Int32Array;
-  length: number;
-}
-
-function push(buffer: IntBuffer, value: number): void {
-  if (buffer.length === buffer.data.length) {
-    const bigger = new Int32Array(buffer.data.length * 2);
-    bigger.set(buffer.data);
-    buffer.data = bigger;
-  }
-  buffer.data[buffer.length++] = value;
+/** A copy of `data` with twice the room. */
+function grown<T extends Int32Array | Uint8Array>(data: T): T {
+  const bigger = new (data.constructor as { new (length: number): T })(data.length * 2);
+  bigger.set(data);
+  return bigger;
 }
 
 /**
@@ -77,15 +69,37 @@ export function scanCsv(text: string, delimiter: string, maxRecords = Number.POS
   // Initial capacity: about one field per 8 characters, less when only a few records are wanted.
   const wanted = Number.isFinite(maxRecords) ? maxRecords * 32 : Number.POSITIVE_INFINITY;
   const guess = Math.max(16, Math.min(1 << 22, n >> 3, wanted));
-  const starts: IntBuffer = { data: new Int32Array(guess), length: 0 };
-  const ends: IntBuffer = { data: new Int32Array(guess), length: 0 };
-  const escaped: IntBuffer = { data: new Int32Array(guess), length: 0 };
-  const rowStart: IntBuffer = { data: new Int32Array(Math.max(16, guess >> 2)), length: 0 };
-  const rowLine: IntBuffer = { data: new Int32Array(Math.max(16, guess >> 2)), length: 0 };
+  // Field spans and record starts, in typed arrays held in locals (grown by doubling).
+  let starts = new Int32Array(guess);
+  let ends = new Int32Array(guess);
+  let escaped = new Uint8Array(guess);
+  let fields = 0;
+  let rowStart = new Int32Array(Math.max(16, guess >> 2));
+  let rowLine = new Int32Array(Math.max(16, guess >> 2));
+  let rows = 0;
+  const addField = (start: number, end: number, isEscaped: number): void => {
+    if (fields === starts.length) {
+      starts = grown(starts);
+      ends = grown(ends);
+      escaped = grown(escaped);
+    }
+    starts[fields] = start;
+    ends[fields] = end;
+    escaped[fields] = isEscaped;
+    fields++;
+  };
+  const addRow = (first: number, at: number): void => {
+    if (rows === rowStart.length) {
+      rowStart = grown(rowStart);
+      rowLine = grown(rowLine);
+    }
+    rowStart[rows] = first;
+    rowLine[rows] = at;
+    rows++;
+  };
   let unclosedQuoteLine: number | undefined;
   let i = n > 0 && text.charCodeAt(0) === 0xfeff ? 1 : 0;
   let line = 1;
-  let rows = 0;
   // Next position of each special character at or after `i` (n when none), refreshed lazily with
   // the engine's native indexOf: the scan stays one pass without a JavaScript loop per character.
   let nextDelimiter = -1;
@@ -100,13 +114,12 @@ export function scanCsv(text: string, delimiter: string, maxRecords = Number.POS
     if (nextDelimiter < from) nextDelimiter = find(delimiter, from);
     if (nextLf < from) nextLf = find('\n', from);
     if (nextCr < from) nextCr = find('\r', from);
-    return Math.min(nextDelimiter, nextLf, nextCr);
+    const a = nextDelimiter < nextLf ? nextDelimiter : nextLf;
+    return a < nextCr ? a : nextCr;
   };
 
   while (i < n && rows < maxRecords) {
-    push(rowStart, starts.length);
-    push(rowLine, line);
-    rows++;
+    addRow(fields, line);
     for (;;) {
       let c = i < n ? text.charCodeAt(i) : -1;
       // Blanks before an opening quote: `; "text"` is read as a quoted field.
@@ -150,20 +163,11 @@ export function scanCsv(text: string, delimiter: string, maxRecords = Number.POS
           if (end > i) plain = false;
           i = end;
         }
-        if (plain) {
-          push(starts, open + 1);
-          push(ends, valueEnd);
-          push(escaped, 0);
-        } else {
-          push(starts, open);
-          push(ends, i);
-          push(escaped, 1);
-        }
+        if (plain) addField(open + 1, valueEnd, 0);
+        else addField(open, i, 1);
       } else {
         const end = i < n ? fieldEnd(i) : n;
-        push(starts, i);
-        push(ends, end);
-        push(escaped, 0);
+        addField(i, end, 0);
         i = end;
       }
       if (i >= n) break;
@@ -179,15 +183,17 @@ export function scanCsv(text: string, delimiter: string, maxRecords = Number.POS
       break;
     }
   }
-  push(rowStart, starts.length);
+  // One extra entry closes the last record.
+  const recordCount = rows;
+  addRow(fields, line);
   const table: CsvTable = {
     text,
-    fieldStart: starts.data.subarray(0, starts.length),
-    fieldEnd: ends.data.subarray(0, ends.length),
-    fieldEscaped: Uint8Array.from(escaped.data.subarray(0, escaped.length)),
-    rowStart: rowStart.data.subarray(0, rowStart.length),
-    rowLine: rowLine.data.subarray(0, rowLine.length),
-    rowCount: rows,
+    fieldStart: starts.subarray(0, fields),
+    fieldEnd: ends.subarray(0, fields),
+    fieldEscaped: escaped.subarray(0, fields),
+    rowStart: rowStart.subarray(0, recordCount + 1),
+    rowLine: rowLine.subarray(0, recordCount),
+    rowCount: recordCount,
     truncated: i < n,
   };
   return unclosedQuoteLine === undefined ? table : { ...table, unclosedQuoteLine };
