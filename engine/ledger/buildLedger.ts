@@ -21,6 +21,7 @@ import {
   createDuplicateIndex,
   findDuplicateColumns,
   keepFile,
+  lastFileOccurrences,
   usableBankRef,
   type CandidateColumns,
 } from './duplicateIndex';
@@ -79,7 +80,9 @@ interface FileAccumulator {
 /**
  * The kept transaction: the entry's own fields copied one by one (an object spread of a
  * dozen fields is several times slower in V8 and dominated the ledger's time on 100,000
- * entries), optional fields only when present.
+ * entries), optional fields only when present. The shapes statements usually give are
+ * written as whole literals: adding the optional fields one by one would give each such
+ * transaction a separate property store, about twice the time. Keys keep one order.
  */
 function ledgerTransaction(
   entry: StatementEntry,
@@ -89,25 +92,47 @@ function ledgerTransaction(
   sourceFile: string,
   occurrence: number,
 ): LedgerTransaction {
-  const t: { -readonly [K in keyof LedgerTransaction]: LedgerTransaction[K] } = {
-    bookingDate: entry.bookingDate,
-    amount: entry.amount,
-    description: entry.description,
-    status: entry.status,
-    source: entry.source,
-    id,
-    accountId: account.id,
-    currency: account.currency,
-    fingerprint,
-    sourceFile,
-    occurrence,
-  };
-  if (entry.valueDate !== undefined) t.valueDate = entry.valueDate;
-  if (entry.counterparty !== undefined) t.counterparty = entry.counterparty;
-  if (entry.reference !== undefined) t.reference = entry.reference;
-  if (entry.bankRef !== undefined) t.bankRef = entry.bankRef;
-  if (entry.typeCode !== undefined) t.typeCode = entry.typeCode;
-  return t;
+  const { bookingDate, amount, description, status, source, valueDate, counterparty, reference, bankRef, typeCode } =
+    entry;
+  const accountId = account.id;
+  const currency = account.currency;
+  const shape =
+    (valueDate !== undefined ? 1 : 0) |
+    (counterparty !== undefined ? 2 : 0) |
+    (reference !== undefined ? 4 : 0) |
+    (bankRef !== undefined ? 8 : 0) |
+    (typeCode !== undefined ? 16 : 0);
+  // prettier-ignore
+  switch (shape) {
+    case 0:
+      return { bookingDate, amount, description, status, source, id, accountId, currency, fingerprint, sourceFile, occurrence };
+    case 2:
+      return { bookingDate, amount, description, status, source, id, accountId, currency, fingerprint, sourceFile, occurrence,
+        counterparty };
+    case 3:
+      return { bookingDate, amount, description, status, source, id, accountId, currency, fingerprint, sourceFile, occurrence,
+        valueDate, counterparty };
+    case 25:
+      return { bookingDate, amount, description, status, source, id, accountId, currency, fingerprint, sourceFile, occurrence,
+        valueDate, bankRef, typeCode };
+    case 27:
+      return { bookingDate, amount, description, status, source, id, accountId, currency, fingerprint, sourceFile, occurrence,
+        valueDate, counterparty, bankRef, typeCode };
+    case 31:
+      return { bookingDate, amount, description, status, source, id, accountId, currency, fingerprint, sourceFile, occurrence,
+        valueDate, counterparty, reference, bankRef, typeCode };
+    default: {
+      const t: { -readonly [K in keyof LedgerTransaction]: LedgerTransaction[K] } = {
+        bookingDate, amount, description, status, source, id, accountId, currency, fingerprint, sourceFile, occurrence,
+      };
+      if (valueDate !== undefined) t.valueDate = valueDate;
+      if (counterparty !== undefined) t.counterparty = counterparty;
+      if (reference !== undefined) t.reference = reference;
+      if (bankRef !== undefined) t.bankRef = bankRef;
+      if (typeCode !== undefined) t.typeCode = typeCode;
+      return t;
+    }
+  }
 }
 
 /**
@@ -266,7 +291,8 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
   };
 
   let seq = 0;
-  for (const { file, result } of files) {
+  for (let fileIndex = 0; fileIndex < files.length; fileIndex++) {
+    const { file, result } = files[fileIndex] as LedgerInputFile;
     const perAccount = new Map<string, FileAccumulator>();
     const notices: ImportProblem[] = [];
     // The booked entries of the file as parallel arrays (no record object per entry): what
@@ -378,12 +404,17 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
       }
     });
 
+    // The stable id of kept candidate i, made once (keepFile asks for it first, then the transaction).
+    const ids: (string | undefined)[] = new Array<string | undefined>(accountIds.length);
+    const idOf = (i: number, occurrence: number): string =>
+      (ids[i] ??= `${accountIds[i] as string}|${fingerprints[i] as string}|${occurrence}`);
     const candidates: CandidateColumns = { accountIds, fingerprints, refs };
     const duplicateOf = findDuplicateColumns(index, candidates);
-    const ids: string[] = new Array<string>(accountIds.length);
-    const occurrenceOf = keepFile(index, candidates, duplicateOf, (i, occurrence) => {
-      return (ids[i] = `${accountIds[i] as string}|${fingerprints[i] as string}|${occurrence}`);
-    });
+    // The index serves later files only: the last file's entries are counted, not recorded.
+    const occurrenceOf =
+      fileIndex === files.length - 1
+        ? lastFileOccurrences(index, candidates, duplicateOf)
+        : keepFile(index, candidates, duplicateOf, (i, occurrence) => idOf(i, occurrence));
     for (let i = 0; i < accountIds.length; i++) {
       const acc = bookedTotals[i] as FileAccumulator;
       const occurrence = occurrenceOf[i] as number;
@@ -394,7 +425,7 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
       acc.entries++;
       const account = bookedAccounts[i] as MutableAccount;
       const entry = bookedEntries[i] as StatementEntry;
-      kept.push(ledgerTransaction(entry, ids[i] as string, account, fingerprints[i] as string, file, occurrence));
+      kept.push(ledgerTransaction(entry, idOf(i, occurrence), account, fingerprints[i] as string, file, occurrence));
       keptAccount.push(account.order);
       keptDay.push(bookedDays[i] as number);
     }
