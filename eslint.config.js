@@ -3,7 +3,17 @@ import tseslint from 'typescript-eslint';
 import globals from 'globals';
 
 export default tseslint.config(
-  { ignores: ['node_modules/**', 'dist/**', 'build/**', 'release/**', 'test-results/**', 'playwright-report/**', '**/*.svelte'] },
+  {
+    ignores: [
+      'node_modules/**',
+      'dist/**',
+      'build/**',
+      'release/**',
+      'test-results/**',
+      'playwright-report/**',
+      '**/*.svelte',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
@@ -24,9 +34,15 @@ export default tseslint.config(
         'error',
         {
           patterns: [
-            { group: ['node:*', 'fs', 'path', 'os', 'child_process', 'crypto', 'url', 'util', 'stream', 'buffer'], message: 'engine/ is pure: no Node imports.' },
+            {
+              group: ['node:*', 'fs', 'path', 'os', 'child_process', 'crypto', 'url', 'util', 'stream', 'buffer'],
+              message: 'engine/ is pure: no Node imports.',
+            },
             { group: ['electron', 'electron/*'], message: 'engine/ is pure: no Electron imports.' },
-            { group: ['dexie', 'svelte', 'svelte/*', 'chart.js', 'chart.js/*'], message: 'engine/ is pure: no UI or storage imports.' },
+            {
+              group: ['dexie', 'svelte', 'svelte/*', 'chart.js', 'chart.js/*'],
+              message: 'engine/ is pure: no UI or storage imports.',
+            },
           ],
         },
       ],

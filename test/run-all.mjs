@@ -34,13 +34,26 @@ check('lint: eslint', npx, ['eslint', '.']);
 check('lint: prettier', npx, ['prettier', '--check', '.']);
 check('types: engine and tests', npx, ['tsc', '-p', 'tsconfig.json']);
 check('types: engine is pure (no DOM, no Node)', npx, ['tsc', '-p', 'engine/tsconfig.json']);
-if (existsSync(join(root, 'main/tsconfig.json'))) check('types: electron main and preload', npx, ['tsc', '-p', 'main/tsconfig.json']);
-if (existsSync(join(root, 'renderer/tsconfig.json'))) check('types: renderer (svelte-check)', npx, ['svelte-check', '--tsconfig', 'renderer/tsconfig.json', '--fail-on-warnings']);
+if (existsSync(join(root, 'main/tsconfig.json')))
+  check('types: electron main and preload', npx, ['tsc', '-p', 'main/tsconfig.json']);
+if (existsSync(join(root, 'renderer/tsconfig.json')))
+  check('types: renderer (svelte-check)', npx, [
+    'svelte-check',
+    '--tsconfig',
+    'renderer/tsconfig.json',
+    '--fail-on-warnings',
+  ]);
 
 // Vitest: unit, oracle, property and fuzz tests.
 {
   const file = join(out, 'vitest.json');
-  const { ok, seconds } = run('vitest', npx, ['vitest', 'run', '--reporter=default', '--reporter=json', `--outputFile=${file}`]);
+  const { ok, seconds } = run('vitest', npx, [
+    'vitest',
+    'run',
+    '--reporter=default',
+    '--reporter=json',
+    `--outputFile=${file}`,
+  ]);
   let p = 0;
   let f = 0;
   if (existsSync(file)) {

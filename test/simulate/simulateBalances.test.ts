@@ -215,4 +215,3 @@ describe('simulateBalances', () => {
     expect(() => simulateBalances({ ...base, components: [c, c] })).toThrow(/share the key/);
   });
 });
-
