@@ -264,6 +264,18 @@ function isAllSpace(s: string): boolean {
   return true;
 }
 
+/**
+ * The engine's one shared copy of a name (in V8, the internalized string a property key
+ * becomes). Names the parser returns are then the very strings the caller's literals are,
+ * so `el.localName === 'Amt'` compares two pointers instead of two texts. Done once per
+ * distinct name (the name cache keeps the result). XML names never look like array indices.
+ */
+function internalized(name: string): string {
+  const holder: Record<string, true> = {};
+  holder[name] = true;
+  return Object.keys(holder)[0] as string;
+}
+
 /** Thrown inside the parser only; `next()` turns it into a sticky `error` event. */
 class XmlAbort {
   constructor(readonly error: XmlSyntaxError) {}
@@ -374,6 +386,11 @@ export class XmlPullParser {
   private tText = '';
   private tCdata = false;
   private tTarget = '';
+
+  // Next "]]>", "&" and CR at or after the text being scanned (see scanCharData).
+  private nextCdataClose = -1;
+  private nextAmp = -1;
+  private nextCr = -1;
 
   private pendingEnd = false;
   private lastStart: XmlStartEvent | undefined;
@@ -795,10 +812,14 @@ export class XmlPullParser {
       }
       let lt = text.indexOf('<', pos);
       if (lt === -1) lt = this.end;
+      // Where the next "]]>", "&" and CR of the document are, looked up again only once passed:
+      // most text runs hold none of them and are taken as they are.
+      if (this.nextCdataClose < pos) this.nextCdataClose = this.indexOrEnd(']]>', pos);
+      if (this.nextCdataClose < lt) this.fail(this.nextCdataClose, '"]]>" is not allowed in text');
+      if (this.nextAmp < pos) this.nextAmp = this.indexOrEnd('&', pos);
+      if (this.nextCr < pos) this.nextCr = this.indexOrEnd('\r', pos);
       const raw = text.slice(pos, lt);
-      const bad = raw.indexOf(']]>');
-      if (bad !== -1) this.fail(pos + bad, '"]]>" is not allowed in text');
-      acc += this.decode(raw, pos, false);
+      acc += this.nextAmp < lt || this.nextCr < lt ? this.decode(raw, pos, false) : raw;
       this.pos = lt;
     }
     if (this.depthNow === 0) {
@@ -864,13 +885,15 @@ export class XmlPullParser {
     return out + normalizeLiteral(raw.slice(last), attribute);
   }
 
-  /** True when `s` occurs in the text at `p` (a plain loop: cheaper than startsWith for short names). */
+  /** Position of the next `s` at or after `from`, or the end of the text. */
+  private indexOrEnd(s: string, from: number): number {
+    const k = this.text.indexOf(s, from);
+    return k === -1 ? this.end : k;
+  }
+
+  /** True when `s` occurs in the text at `p`. */
   private matchesAt(s: string, p: number): boolean {
-    const text = this.text;
-    const n = s.length;
-    if (p + n > this.end) return false;
-    for (let i = 0; i < n; i++) if (s.charCodeAt(i) !== text.charCodeAt(p + i)) return false;
-    return true;
+    return this.text.startsWith(s, p);
   }
 
   /** Scans a name starting at `p` (its first character already checked) and returns it interned. */
@@ -887,12 +910,8 @@ export class XmlPullParser {
     const slot = h & (NAME_CACHE_SIZE - 1);
     this.lastNameSlot = slot;
     const cached = this.nameCache[slot];
-    if (cached !== undefined && cached.length === p - start) {
-      let i = 0;
-      while (i < cached.length && cached.charCodeAt(i) === text.charCodeAt(start + i)) i++;
-      if (i === cached.length) return cached;
-    }
-    const name = text.slice(start, p);
+    if (cached !== undefined && cached.length === p - start && text.startsWith(cached, start)) return cached;
+    const name = internalized(text.slice(start, p));
     this.nameCache[slot] = name;
     this.namePrefix[slot] = undefined;
     return name;
@@ -908,7 +927,7 @@ export class XmlPullParser {
       if (colon !== -1 && (colon === 0 || colon === name.length - 1 || name.indexOf(':', colon + 1) !== -1)) {
         this.fail(at, `"${name}" is not a valid namespace-qualified name`, element);
       }
-      parts = colon === -1 ? ['', name] : [name.slice(0, colon), name.slice(colon + 1)];
+      parts = colon === -1 ? ['', name] : [internalized(name.slice(0, colon)), internalized(name.slice(colon + 1))];
       if (this.qnameParts.size < 10000) this.qnameParts.set(name, parts);
     }
     if (slot >= 0 && this.nameCache[slot] === name) this.namePrefix[slot] = parts;

@@ -99,22 +99,60 @@ export function readEntry(ntry: XmlElement, path: string, ctx: StatementContext)
   const texts = ctx.texts;
   const share = (text: string): string => (texts ? texts.intern(text) : ownText(text));
   const day = share(date);
-  const entry: {
-    -readonly [K in keyof StatementEntry]: StatementEntry[K];
-  } = {
-    bookingDate: day,
-    amount,
-    description: ownText(description.trim()),
-    status,
-    source: { line: ntry.line, element: path },
-  };
-  if (valueDate !== undefined) entry.valueDate = valueDate === date ? day : share(valueDate);
-  if (details.counterparty) entry.counterparty = share(details.counterparty);
-  if (details.reference) entry.reference = ownText(details.reference);
-  if (bankRef) entry.bankRef = ownText(bankRef);
-  const typeCode = readTypeCode(ntry, ns);
-  if (typeCode) entry.typeCode = share(typeCode);
-  return entry;
+  const text = ownText(description.trim());
+  const source = { line: ntry.line, element: path };
+  const value = valueDate === undefined ? undefined : valueDate === date ? day : share(valueDate);
+  const counterparty = details.counterparty ? share(details.counterparty) : undefined;
+  const reference = details.reference ? ownText(details.reference) : undefined;
+  const bank = bankRef ? ownText(bankRef) : undefined;
+  const rawType = readTypeCode(ntry, ns);
+  const typeCode = rawType ? share(rawType) : undefined;
+  return entryOf(day, amount, text, status, source, value, counterparty, reference, bank, typeCode);
+}
+
+/**
+ * The entry with only the fields that are present, keys in one order. The shapes camt
+ * entries usually have are written as whole literals: adding the optional fields one by one
+ * would give each entry a separate property store.
+ */
+function entryOf(
+  bookingDate: string,
+  amount: number,
+  description: string,
+  status: 'booked' | 'pending',
+  source: { line: number; element: string },
+  valueDate: string | undefined,
+  counterparty: string | undefined,
+  reference: string | undefined,
+  bankRef: string | undefined,
+  typeCode: string | undefined,
+): StatementEntry {
+  const shape =
+    (valueDate !== undefined ? 1 : 0) |
+    (counterparty !== undefined ? 2 : 0) |
+    (reference !== undefined ? 4 : 0) |
+    (bankRef !== undefined ? 8 : 0) |
+    (typeCode !== undefined ? 16 : 0);
+  // prettier-ignore
+  switch (shape) {
+    case 25:
+      return { bookingDate, amount, description, status, source, valueDate, bankRef, typeCode };
+    case 27:
+      return { bookingDate, amount, description, status, source, valueDate, counterparty, bankRef, typeCode };
+    case 31:
+      return { bookingDate, amount, description, status, source, valueDate, counterparty, reference, bankRef, typeCode };
+    default: {
+      const entry: { -readonly [K in keyof StatementEntry]: StatementEntry[K] } = {
+        bookingDate, amount, description, status, source,
+      };
+      if (valueDate !== undefined) entry.valueDate = valueDate;
+      if (counterparty !== undefined) entry.counterparty = counterparty;
+      if (reference !== undefined) entry.reference = reference;
+      if (bankRef !== undefined) entry.bankRef = bankRef;
+      if (typeCode !== undefined) entry.typeCode = typeCode;
+      return entry;
+    }
+  }
 }
 
 function nonEmpty(s: string | undefined): string | undefined {

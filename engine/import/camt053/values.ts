@@ -300,17 +300,21 @@ const POOL_LIMIT = 4096;
  */
 export class TextPool {
   private readonly strings = new Map<string, string>();
-  private last = '';
+  /** The last four distinct results, checked before the map (an entry's date, party and code repeat). */
+  private readonly recent: string[] = ['', '', '', ''];
+  private next = 0;
 
-  /** The pooled copy of `text` (a repeat of the previous text costs one comparison). */
+  /** The pooled copy of `text` (a recent text costs a few comparisons, no hashing). */
   intern(text: string): string {
-    if (text === this.last) return this.last;
+    const recent = this.recent;
+    for (let k = 0; k < 4; k++) if (recent[k] === text) return recent[k] as string;
     let kept = this.strings.get(text);
     if (kept === undefined) {
       kept = ownText(text);
       if (this.strings.size < POOL_LIMIT) this.strings.set(kept, kept);
     }
-    this.last = kept;
+    recent[this.next] = kept;
+    this.next = (this.next + 1) & 3;
     return kept;
   }
 }
