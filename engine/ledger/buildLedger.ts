@@ -141,11 +141,7 @@ function ledgerTransaction(
  * holds already and one pass confirms it; otherwise a stable sort on one numeric key per
  * transaction (account and day packed together). O(n), or O(n log n) when out of order.
  */
-function sortedTransactions(
-  kept: LedgerTransaction[],
-  accountOrder: readonly number[],
-  day: readonly number[],
-): LedgerTransaction[] {
+function sortedTransactions(kept: LedgerTransaction[], accountOrder: Int32Array, day: Int32Array): LedgerTransaction[] {
   const n = kept.length;
   let sorted = true;
   for (let i = 1; i < n && sorted; i++) {
@@ -231,9 +227,11 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
   const usedIds = new Set<string>();
   const index = createDuplicateIndex();
   // Kept transactions in the order found, with their account order and booking day.
+  let totalEntries = 0;
+  for (const { result } of files) for (const statement of result.statements) totalEntries += statement.entries.length;
   const kept: LedgerTransaction[] = [];
-  const keptAccount: number[] = [];
-  const keptDay: number[] = [];
+  const keptAccount = new Int32Array(totalEntries);
+  const keptDay = new Int32Array(totalEntries);
   let lastDate: string | undefined;
   let lastDay = 0;
   const anchors: { a: BalanceAnchor; account: number; end: number; seq: number }[] = [];
@@ -297,13 +295,18 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
     const notices: ImportProblem[] = [];
     // The booked entries of the file as parallel arrays (no record object per entry): what
     // duplicate detection needs, then what the kept transaction needs.
-    const accountIds: string[] = [];
-    const fingerprints: string[] = [];
-    const refs: (string | undefined)[] = [];
-    const bookedEntries: StatementEntry[] = [];
-    const bookedAccounts: MutableAccount[] = [];
-    const bookedTotals: FileAccumulator[] = [];
-    const bookedDays: number[] = [];
+    // Sized to the file's entries up front: no growing (and no discarded copies of) arrays of
+    // 100,000 slots; trimmed to the booked ones afterwards.
+    let entryCount = 0;
+    for (const statement of result.statements) entryCount += statement.entries.length;
+    const accountIds = new Array<string>(entryCount);
+    const fingerprints = new Array<string>(entryCount);
+    const refs = new Array<string | undefined>(entryCount);
+    const bookedEntries = new Array<StatementEntry>(entryCount);
+    const bookedAccounts = new Array<MutableAccount>(entryCount);
+    const bookedTotals = new Array<FileAccumulator>(entryCount);
+    const bookedDays = new Int32Array(entryCount);
+    let booked = 0;
 
     result.statements.forEach((statement, statementIndex) => {
       const currency = statement.currency || options.currency;
@@ -394,15 +397,19 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
         }
         acc.net += entry.amount;
         const fingerprint = entryFingerprint(entry);
-        accountIds.push(account.id);
-        fingerprints.push(fingerprint);
-        refs.push(entry.bankRef === undefined ? undefined : usableBankRef(entry.bankRef));
-        bookedEntries.push(entry);
-        bookedAccounts.push(account);
-        bookedTotals.push(acc);
-        bookedDays.push(lastDay);
+        accountIds[booked] = account.id;
+        fingerprints[booked] = fingerprint;
+        refs[booked] = entry.bankRef === undefined ? undefined : usableBankRef(entry.bankRef);
+        bookedEntries[booked] = entry;
+        bookedAccounts[booked] = account;
+        bookedTotals[booked] = acc;
+        bookedDays[booked] = lastDay;
+        booked++;
       }
     });
+    accountIds.length = booked;
+    fingerprints.length = booked;
+    refs.length = booked;
 
     // The stable id of kept candidate i, made once (keepFile asks for it first, then the transaction).
     const ids: (string | undefined)[] = new Array<string | undefined>(accountIds.length);
@@ -425,9 +432,9 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
       acc.entries++;
       const account = bookedAccounts[i] as MutableAccount;
       const entry = bookedEntries[i] as StatementEntry;
+      keptAccount[kept.length] = account.order;
+      keptDay[kept.length] = bookedDays[i] as number;
       kept.push(ledgerTransaction(entry, idOf(i, occurrence), account, fingerprints[i] as string, file, occurrence));
-      keptAccount.push(account.order);
-      keptDay.push(bookedDays[i] as number);
     }
 
     const accountReports: FileAccountReport[] = [...perAccount.values()].map((acc) => ({

@@ -7,8 +7,9 @@
  * - time of importStatement (decode, detect, parse) and of buildLedger (normalise,
  *   fingerprints, duplicate detection, reconciliation), median of several runs;
  * - peak rss of the importing process (kernel maxRSS, which sees the peak inside
- *   synchronous code), its baseline before the import (code + input bytes) and the heap the
- *   result still holds after a collection;
+ *   synchronous code), its baseline before the import (Node, the bundled code and the input
+ *   bytes) and the heap the result still holds after a collection; the process runs the
+ *   measuring script bundled by esbuild, plain Node without the TypeScript loader;
  * - for the CSV, the same text read by a minimal RFC 4180 parser (_plainCsv.ts: quotes
  *   handled, every field a string) as the reference, timed in the same process,
  *   alternating with the import runs;
@@ -17,6 +18,7 @@
  * Figures only, nothing asserted. Run: npm run bench import  (RUNS=n to change the runs)
  */
 import { spawnSync } from 'node:child_process';
+import { build } from 'esbuild';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { dirname, join } from 'node:path';
@@ -55,12 +57,29 @@ interface CaseResult {
   plainFields?: number;
 }
 
-function runCase(mode: string, dir: string): CaseResult {
-  const r = spawnSync(
-    process.execPath,
-    ['--expose-gc', '--import', 'tsx', join(here, '_importCase.ts'), mode, dir, String(RUNS)],
-    { encoding: 'utf8', maxBuffer: 1 << 24 },
-  );
+/**
+ * The measuring script bundled into plain JavaScript, so the importing process is plain Node
+ * as in the app's worker: under tsx it would also carry the TypeScript loader (a worker
+ * thread and an esbuild service, some 40 MiB of rss) in every memory figure.
+ */
+async function bundleCase(dir: string): Promise<string> {
+  const outfile = join(dir, 'importCase.mjs');
+  await build({
+    entryPoints: [join(here, '_importCase.ts')],
+    bundle: true,
+    platform: 'node',
+    format: 'esm',
+    outfile,
+    logLevel: 'error',
+  });
+  return outfile;
+}
+
+function runCase(script: string, mode: string, dir: string): CaseResult {
+  const r = spawnSync(process.execPath, ['--expose-gc', script, mode, dir, String(RUNS)], {
+    encoding: 'utf8',
+    maxBuffer: 1 << 24,
+  });
   if (r.status !== 0) throw new Error(`${mode}: exited with ${r.status ?? r.signal}\n${r.stderr}`);
   const line = r.stdout.trim().split('\n').pop() as string;
   return JSON.parse(line) as CaseResult;
@@ -86,7 +105,7 @@ function memoryLine(r: CaseResult): void {
   const m = r.memory;
   console.log(
     `  memory (fresh process, first import): peak rss ${m.peakRss.toFixed(0)} MiB = baseline ${m.baseRss.toFixed(0)} MiB ` +
-      `(code + input bytes) + ${m.peakAboveBase.toFixed(0)} MiB during the import; ` +
+      `(node + code + input bytes) + ${m.peakAboveBase.toFixed(0)} MiB during the import; ` +
       `heap kept by result + ledger ${m.keptHeap.toFixed(0)} MiB (${Math.round(m.keptPerEntry)} B/entry); ` +
       `cold run ${m.coldMs.toFixed(0)} ms`,
   );
@@ -95,6 +114,7 @@ function memoryLine(r: CaseResult): void {
 const dir = mkdtempSync(join(tmpdir(), 'ebbline-import-bench-'));
 try {
   const inputs = writeImportInputs(dir, BENCH_ROWS);
+  const script = await bundleCase(dir);
   const [l1, l5] = loadavg() as [number, number, number];
   console.log(
     `inputs: CSV ${inputs.rows.toLocaleString('en-US')} rows, ${(inputs.csvBytes / 2 ** 20).toFixed(1)} MiB; ` +
@@ -104,7 +124,7 @@ try {
       `cpu = the importing process's user + system time)`,
   );
 
-  const csv = runCase('csv', dir);
+  const csv = runCase(script, 'csv', dir);
   const plain = csv.plain as Run;
   row(
     'CSV reference: minimal RFC 4180 parser (text in)',
@@ -119,14 +139,14 @@ try {
   console.log(`  reconciled: ${csv.reconciled}; ${csv.transactions.toLocaleString('en-US')} transactions`);
   memoryLine(csv);
 
-  const camt = runCase('camt', dir);
+  const camt = runCase(script, 'camt', dir);
   row('camt.053 importStatement (bytes in: decode, detect, parse)', camt.parse, camt.entries);
   row('camt.053 buildLedger (normalise, dedupe, reconcile)', camt.ledger, camt.entries);
   row('camt.053 import total', camt.total, camt.entries);
   console.log(`  reconciled: ${camt.reconciled}; ${camt.transactions.toLocaleString('en-US')} transactions`);
   memoryLine(camt);
 
-  const both = runCase('both', dir);
+  const both = runCase(script, 'both', dir);
   row(
     'camt.053 + CSV buildLedger (CSV rows all duplicates)',
     both.ledger,
