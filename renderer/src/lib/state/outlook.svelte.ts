@@ -225,6 +225,11 @@ export class OutlookState {
     this.#controller.abort();
   }
 
+  /** Runs again with the current settings (after Cancel or an error). */
+  retry(): void {
+    this.#schedule(0);
+  }
+
   /** Stops timers and any run (the screen is going away). */
   dispose(): void {
     this.#history = null;

@@ -39,6 +39,7 @@ export class PatternsState {
   #subject = $state<Subject>('series');
 
   #source: ForecastHistory | null = null;
+  #decisions: RecurringDecision[] = [];
   #version: number | null = null;
   #controller: AbortController | null = null;
   #run = 0;
@@ -90,11 +91,17 @@ export class PatternsState {
       this.#status = 'idle';
       return;
     }
-    void this.#start(history, $state.snapshot(decisions) as RecurringDecision[]);
+    this.#decisions = $state.snapshot(decisions) as RecurringDecision[];
+    void this.#start(history, this.#decisions);
   }
 
   cancel(): void {
     this.#controller?.abort();
+  }
+
+  /** Computes again (after Cancel or an error). */
+  retry(): void {
+    if (this.#source && !this.#controller) void this.#start(this.#source, this.#decisions);
   }
 
   dispose(): void {
