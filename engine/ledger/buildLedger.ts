@@ -25,7 +25,7 @@ import {
   usableBankRef,
   type CandidateColumns,
 } from './duplicateIndex';
-import { entryFingerprint } from './fingerprint';
+import { entryFingerprint, lastFingerprintHash } from './fingerprint';
 import { identifierKeys, normaliseIdentifier } from './normaliseIdentifier';
 import { anchorEndDay, reconcileAccount } from './reconcileAccount';
 import { checkStatement, statementBalances } from './statementCheck';
@@ -306,6 +306,7 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
     const bookedAccounts = new Array<MutableAccount>(entryCount);
     const bookedTotals = new Array<FileAccumulator>(entryCount);
     const bookedDays = new Int32Array(entryCount);
+    const hashes = new Int32Array(entryCount);
     let booked = 0;
 
     result.statements.forEach((statement, statementIndex) => {
@@ -366,6 +367,7 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
       }
 
       const entries = statement.entries;
+      let boundsDate: string | undefined;
       for (let k = 0; k < entries.length; k++) {
         const entry = entries[k] as StatementEntry;
         if (!Number.isSafeInteger(entry.amount)) {
@@ -380,7 +382,9 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
           lastDay = toDayNumber(entry.bookingDate);
           lastDate = entry.bookingDate;
         }
-        if (entry.status === 'booked') {
+        // The bounds change only when the date does (reset per statement, whose own from/to were just applied).
+        if (entry.status === 'booked' && entry.bookingDate !== boundsDate) {
+          boundsDate = entry.bookingDate;
           if (acc.from === null || entry.bookingDate < acc.from) acc.from = entry.bookingDate;
           if (acc.to === null || entry.bookingDate > acc.to) acc.to = entry.bookingDate;
         }
@@ -399,6 +403,7 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
         const fingerprint = entryFingerprint(entry);
         accountIds[booked] = account.id;
         fingerprints[booked] = fingerprint;
+        hashes[booked] = lastFingerprintHash();
         refs[booked] = entry.bankRef === undefined ? undefined : usableBankRef(entry.bankRef);
         bookedEntries[booked] = entry;
         bookedAccounts[booked] = account;
@@ -420,7 +425,7 @@ export function buildLedger(files: readonly LedgerInputFile[], options: BuildLed
     // The index serves later files only: the last file's entries are counted, not recorded.
     const occurrenceOf =
       fileIndex === files.length - 1
-        ? lastFileOccurrences(index, candidates, duplicateOf)
+        ? lastFileOccurrences(index, candidates, duplicateOf, hashes)
         : keepFile(index, candidates, duplicateOf, (i, occurrence) => idOf(i, occurrence));
     for (let i = 0; i < accountIds.length; i++) {
       const acc = bookedTotals[i] as FileAccumulator;

@@ -249,6 +249,9 @@ function fnv1a(text: string, seed: number): number {
  * (Fowler, Noll, Vo; each hit confirmed by comparing the strings), which is cheaper than a
  * map keyed by the fingerprint strings. O(n) expected.
  *
+ * @param fingerprintHashes FNV-1a of each fingerprint when the caller has them (see
+ *   `lastFingerprintHash`); otherwise they are computed here.
+ *
  * @returns per candidate its occurrence, 0 for a duplicate.
  * @example
  * const c = { accountIds: ['A', 'A'], fingerprints: ['f', 'f'], refs: [undefined, undefined] };
@@ -258,6 +261,7 @@ export function lastFileOccurrences(
   index: DuplicateIndex,
   candidates: CandidateColumns,
   duplicateOf: readonly (KeptEntry | null)[],
+  fingerprintHashes?: Int32Array,
 ): Int32Array {
   const { accountIds, fingerprints } = candidates;
   const n = accountIds.length;
@@ -282,7 +286,10 @@ export function lastFileOccurrences(
       pools = index.pools.get(account);
     }
     const fingerprint = fingerprints[i] as string;
-    const hash = fnv1a(fingerprint, accountHash);
+    const hash = Math.imul(
+      (fingerprintHashes ? (fingerprintHashes[i] as number) : fnv1a(fingerprint, 0x811c9dc5)) ^ accountHash,
+      0x01000193,
+    );
     let s = hash & mask;
     for (;;) {
       const j = first[s] as number;

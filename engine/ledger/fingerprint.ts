@@ -29,8 +29,33 @@ let wordCount = 0;
 const codes: number[] = [];
 let codeCount = 0;
 
+// FNV-1a (Fowler, Noll, Vo) of the codes written, kept as they are written.
+let codeHash = 0x811c9dc5;
+
 function put(code: number): void {
   codes[codeCount++] = code;
+  codeHash = Math.imul(codeHash ^ code, 0x01000193);
+}
+
+let lastHash = 0;
+
+/**
+ * The 32-bit FNV-1a hash of the fingerprint `entryFingerprint` returned last, over its
+ * UTF-16 code units: the ledger keys its tables by it without hashing the string again.
+ * @example entryFingerprint(entry); lastFingerprintHash() === fingerprintHash(entryFingerprint(entry)) // true
+ */
+export function lastFingerprintHash(): number {
+  return lastHash;
+}
+
+/**
+ * 32-bit FNV-1a hash of a string's UTF-16 code units (what `lastFingerprintHash` gives).
+ * @example fingerprintHash('') // -2128831035 (0x811c9dc5 as a signed 32-bit integer)
+ */
+export function fingerprintHash(text: string): number {
+  let h = 0x811c9dc5;
+  for (let i = 0; i < text.length; i++) h = Math.imul(h ^ text.charCodeAt(i), 0x01000193);
+  return h;
 }
 
 /** Char code lower-cased in ASCII. */
@@ -191,13 +216,17 @@ export function entryFingerprint(
   // `${description} ${counterparty}`, without building that string.
   if (Number.isSafeInteger(entry.amount) && addAsciiWords(entry.description) && addAsciiWords(counterparty)) {
     const date = entry.bookingDate;
+    codeHash = 0x811c9dc5;
     for (let i = 0; i < date.length; i++) put(date.charCodeAt(i));
     put(0x7c);
     writeInteger(entry.amount);
     put(0x7c);
     writeWords();
+    lastHash = codeHash;
     return takeCodes();
   }
   clearWords();
-  return `${entry.bookingDate}|${entry.amount}|${unicodeWords(`${entry.description} ${counterparty}`)}`;
+  const fingerprint = `${entry.bookingDate}|${entry.amount}|${unicodeWords(`${entry.description} ${counterparty}`)}`;
+  lastHash = fingerprintHash(fingerprint);
+  return fingerprint;
 }

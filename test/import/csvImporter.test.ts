@@ -301,3 +301,26 @@ describe('structural problems refuse the file and name the line', () => {
     expect(r.problems.every((p) => p.file === 'x.csv')).toBe(true);
   });
 });
+
+describe('formats decided from all rows, not from the first ones', () => {
+  // The importer converts rows with formats guessed from the first 256 rows and must redo
+  // them when all rows decide otherwise; these files change their evidence late.
+  it('a month-first date after 300 rows that read either way', () => {
+    const rows = Array.from({ length: 300 }, (_, i) => `01/01/2025,r${i},1.00`);
+    const r = parse(['Date,Text,Amount', ...rows, '01/13/2025,late,2.00', ''].join('\n'), { currency: 'USD' });
+    expect(hasErrors(r)).toBe(false);
+    const entries = r.statements[0]?.entries ?? [];
+    expect(entries).toHaveLength(301);
+    expect(entries[300]?.bookingDate).toBe('2025-01-13');
+  });
+
+  it('a decimal comma shown only after 300 amounts that could group thousands', () => {
+    // "1,500" alone reads as 1500.00 in EUR (a comma grouping thousands); a later "2,50"
+    // settles the comma as the decimal separator, so every "1,500" is 1.50.
+    const rows = Array.from({ length: 300 }, (_, i) => `2025-01-01;r${i};1,500`);
+    const r = parse(['Date;Text;Amount', ...rows, '2025-01-02;late;2,50', ''].join('\n'), { currency: 'EUR' });
+    expect(hasErrors(r)).toBe(false);
+    expect(amounts(r).slice(0, 2)).toEqual([150, 150]);
+    expect(amounts(r).slice(-1)).toEqual([250]);
+  });
+});

@@ -2,7 +2,12 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { ibanCheckDigits, isValidIban } from '../../engine/ledger/iban';
 import { identifierKeys, normaliseIdentifier } from '../../engine/ledger/normaliseIdentifier';
-import { entryFingerprint, fingerprintWords } from '../../engine/ledger/fingerprint';
+import {
+  entryFingerprint,
+  fingerprintHash,
+  fingerprintWords,
+  lastFingerprintHash,
+} from '../../engine/ledger/fingerprint';
 
 describe('IBAN check digits', () => {
   it('accepts the standard example and refuses a changed check digit', () => {
@@ -75,9 +80,9 @@ describe('fingerprints', () => {
     fc.assert(
       fc.property(text, text, (description, counterparty) => {
         expect(fingerprintWords(description)).toBe(reference(description));
-        expect(entryFingerprint({ bookingDate: '2026-01-02', amount: 1, description, counterparty })).toBe(
-          `2026-01-02|1|${reference(`${description} ${counterparty}`)}`,
-        );
+        const fingerprint = entryFingerprint({ bookingDate: '2026-01-02', amount: 1, description, counterparty });
+        expect(fingerprint).toBe(`2026-01-02|1|${reference(`${description} ${counterparty}`)}`);
+        expect(lastFingerprintHash()).toBe(fingerprintHash(fingerprint));
       }),
       { numRuns: 500 },
     );

@@ -756,6 +756,8 @@ interface RowConverter {
     bookingDate: CalendarDate | undefined,
     valueDate: CalendarDate | undefined,
     amount: number | undefined,
+    /** The balance cell already read (NaN when empty); undefined to read it here. */
+    balanceRead?: number,
   ): void;
 }
 
@@ -797,7 +799,7 @@ function createRowConverter(reading: Reading, formats: RowFormats, sink: ErrorSi
       if (date === undefined) sink.error(line, describeDateError(cellAt(table, r, col), format, label));
       return date;
     },
-    finish(r, line, errorsBefore, bookingDate, valueDate, amount) {
+    finish(r, line, errorsBefore, bookingDate, valueDate, amount, balanceRead) {
       let pending = false;
       if (columns.status !== undefined) {
         cellSpan(table, r, columns.status, span);
@@ -814,8 +816,8 @@ function createRowConverter(reading: Reading, formats: RowFormats, sink: ErrorSi
         } else pending = lastStatus === 'pending';
         if (span.end === span.start) lastStatusText = '';
       }
-      let balance = Number.NaN;
-      if (columns.balance !== undefined) {
+      let balance = balanceRead ?? Number.NaN;
+      if (columns.balance !== undefined && balanceRead === undefined) {
         cellSpan(table, r, columns.balance, span);
         if (span.end > span.start) balance = amountIn('balance', line) ?? Number.NaN;
       }
@@ -1058,9 +1060,15 @@ function formatAndRowStep(reading: Reading): RowData | undefined {
       amount = inspectAndReadAmount(span.text, span.start, span.end, numbers, exponent, guess.currency);
       noteAmount(reading, g, lastInspection(), line);
     }
+    let balance = Number.NaN;
     if (balanceCol !== undefined) {
       cellSpan(table, r, balanceCol, span);
-      if (span.end > span.start) noteAmount(reading, g, inspectAmount(span.text, span.start, span.end), line);
+      if (span.end > span.start) {
+        const value = inspectAndReadAmount(span.text, span.start, span.end, numbers, exponent, guess.currency);
+        noteAmount(reading, g, lastInspection(), line);
+        if (typeof value === 'number') balance = value;
+        else trialErrors++;
+      }
     }
     cellSpan(table, r, columns.date, span);
     g.dates.add(span.text, line, span.start, span.end);
@@ -1080,7 +1088,7 @@ function formatAndRowStep(reading: Reading): RowData | undefined {
       trialErrors++;
       continue;
     }
-    convert.finish(r, line, 0, bookingDate, valueDate, negate && amount !== 0 ? -amount : amount);
+    convert.finish(r, line, 0, bookingDate, valueDate, negate && amount !== 0 ? -amount : amount, balance);
   }
   if (!decideFormats(reading, g)) return undefined;
   const decided = reading.dateFormat as CsvDateFormat;
