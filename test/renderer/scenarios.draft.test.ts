@@ -1,6 +1,7 @@
 // The scenario editor's draft: typed text to an `ebbline.plan/1` document and back, live
 // validation through validatePlan with every problem placed at its field, and nothing
 // typed lost when a field is not valid.
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { validatePlan } from '../../engine/plan/plan';
 import { demoScenarioSet } from '../../engine/scenario/demoScenarios';
@@ -166,6 +167,37 @@ describe('draftFromDocument', () => {
       expect(v.problems).toEqual([]);
       expect(v.plan).toEqual((validatePlan(plan, 'EUR') as { plan: unknown }).plan);
     }
+  });
+
+  it('keeps a plan file’s chance exactly, so the app forecasts the number the CLI reads', () => {
+    const planWith = (probability: number) => ({
+      schema: 'ebbline.plan/1',
+      items: [{ label: 'Invoice 88', amount: 1850, date: '2026-11-20', probability }],
+    });
+    const chanceOf = (doc: unknown) => validateDraft(draftFromDocument(doc, 'EUR'), 'EUR').plan?.items[0]?.probability;
+    // Chances with more than six decimals were once rounded to six (1/3 became 0.333333).
+    expect(draftFromDocument(planWith(1 / 3), 'EUR').items[0]!.probability).toBe('33.33333333333333');
+    expect(chanceOf(planWith(1 / 3))).toBe(1 / 3);
+    expect(chanceOf(planWith(0.999999999))).toBe(0.999999999);
+    expect(chanceOf(planWith(1e-7))).toBe(1e-7);
+    fc.assert(
+      fc.property(fc.double({ min: 0, max: 1, noNaN: true }), (p) => {
+        const cli = validatePlan(planWith(p), 'EUR');
+        expect(cli.ok).toBe(true);
+        expect(chanceOf(planWith(p))).toBe(cli.ok ? cli.plan.items[0]!.probability : NaN);
+      }),
+      { seed: 6, numRuns: 500 },
+    );
+  });
+
+  it('reads a typed percentage on its digits, every decimal kept (7 is 0.07, 12.3456789 is 0.123456789)', () => {
+    const chance = (typed: string) =>
+      validateDraft(withItem({ probability: typed }), 'EUR').plan?.items[0]?.probability;
+    expect(chance('7')).toBe(0.07);
+    expect(chance('7,5 %')).toBe(0.075);
+    expect(chance('.5')).toBe(0.005);
+    expect(chance('12.3456789')).toBe(0.123456789);
+    expect(chance('100')).toBe(1);
   });
 
   it('shows damaged fields as they are instead of replacing them', () => {

@@ -94,9 +94,32 @@ function isRecord(x: unknown): x is Record<string, unknown> {
   return typeof x === 'object' && x !== null && !Array.isArray(x);
 }
 
-/** A number as short text: 0.75 × 100 → "75", not "75.00000000000001". */
-function shortNumber(n: number): string {
-  return String(Math.round(n * 1e6) / 1e6);
+/**
+ * A decimal text with its point moved `places` digits (right for positive), done on the
+ * digits rather than by multiplying, so nothing is rounded: a plan file's chance of
+ * 0.3333333333 is shown as 33.33333333 percent and read back as exactly 0.3333333333, the
+ * number the CLI reads from the same file ("0.07" → "7", not 7.000000000000001).
+ * Accepts what `String(number)` writes (also "1e-7") and typed decimals ("+.5", "7.").
+ * @example movePoint('0.075', 2) // '7.5'
+ * @example movePoint('7.5', -2) // '0.075'
+ */
+function movePoint(text: string, places: number): string {
+  const m = /^([+-]?)(\d*)(?:\.(\d*))?(?:e([+-]?\d+))?$/i.exec(text.trim());
+  if (!m) throw new Error(`not a decimal: "${text}"`);
+  const [, sign = '', whole = '', fraction = '', exponent = '0'] = m;
+  const digits = whole + fraction;
+  const point = whole.length + Number(exponent) + places;
+  const padded =
+    point <= 0
+      ? `0.${'0'.repeat(-point)}${digits}`
+      : point >= digits.length
+        ? digits + '0'.repeat(point - digits.length)
+        : `${digits.slice(0, point)}.${digits.slice(point)}`;
+  const [int = '', frac = ''] = padded.split('.');
+  const cleanInt = int.replace(/^0+(?=\d)/, '') || '0';
+  const cleanFrac = frac.replace(/0+$/, '');
+  const body = cleanFrac ? `${cleanInt}.${cleanFrac}` : cleanInt;
+  return sign === '-' && /[1-9]/.test(body) ? `-${body}` : body;
 }
 
 /** A stored amount (major units) as the text the editor shows, without losing anything. */
@@ -159,7 +182,9 @@ export function draftFromDocument(doc: unknown, currency: string, fallbackName =
     const r = isRecord(raw) ? raw : {};
     const delay = isRecord(r.delayDays) ? r.delayDays : {};
     const probability =
-      typeof r.probability === 'number' ? shortNumber(r.probability * 100) : textOf(r.probability, '100');
+      typeof r.probability === 'number' && Number.isFinite(r.probability)
+        ? movePoint(String(r.probability), 2)
+        : textOf(r.probability, '100');
     return {
       key: rowKey('i'),
       label: textOf(r.label),
@@ -194,12 +219,16 @@ export function draftFromDocument(doc: unknown, currency: string, fallbackName =
   };
 }
 
+/** A typed decimal ("7.5", "7,5", "7.5%") in plain form ("7.5"), or null. */
+function decimalTextOf(text: string): string | null {
+  const t = text.trim().replace(/\s+/g, '').replace(',', '.').replace(/%$/, '');
+  return /^[+-]?(\d+(\.\d*)?|\.\d+)$/.test(t) && Number.isFinite(Number(t)) ? t : null;
+}
+
 /** A typed decimal ("7.5", "7,5") as a number, or null. */
 function decimalOf(text: string): number | null {
-  const t = text.trim().replace(/\s+/g, '').replace(',', '.').replace(/%$/, '');
-  if (!/^[+-]?(\d+(\.\d*)?|\.\d+)$/.test(t)) return null;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : null;
+  const t = decimalTextOf(text);
+  return t === null ? null : Number(t);
 }
 
 /** A typed whole number of days, or null. */
@@ -260,11 +289,13 @@ export function validateDraft(draft: PlanDraft, currency: string): DraftValidati
   const items = draft.items.map((item, i) => {
     const p = `$.items[${i}]`;
     let probability: unknown = item.probability;
-    const pct = decimalOf(item.probability);
-    if (pct === null)
+    const pctText = decimalTextOf(item.probability);
+    const pct = Number(pctText);
+    if (pctText === null)
       problem(`${p}.probability`, `"${item.probability.trim()}" is not a chance; type a percentage from 0 to 100`);
     else if (pct < 0 || pct > 100) problem(`${p}.probability`, `${pct}% is outside 0–100%`);
-    else probability = Math.round(pct * 1e4) / 1e6;
+    // Percent to share on the digits: the number a plan file holds comes back unchanged.
+    else probability = Number(movePoint(pctText, -2));
     const min = wholeOf(item.delayMin);
     const max = wholeOf(item.delayMax);
     let delayDays: unknown = { min: item.delayMin, max: item.delayMax };
