@@ -12,7 +12,12 @@ import {
   planFileText,
   readPlanFile,
 } from '../../renderer/src/components/scenarios/planFile';
-import { lateCommissionPlan } from '../../engine/scenario/demoScenarios';
+import { DEMO_CUSHION, lateCommissionPlan } from '../../engine/scenario/demoScenarios';
+import {
+  DEFAULT_REPORT_CHOICES,
+  REPORT_SETTING,
+  saveExampleReportChoices,
+} from '../../renderer/src/components/report/reportChoices';
 
 let counter = 0;
 const open: WorkspaceDb[] = [];
@@ -133,6 +138,39 @@ describe('ScenarioStore', () => {
     expect(await store.setting('scenarios.comparison', { horizon: 91 })).toEqual({ horizon: 91 });
     await store.saveSetting('scenarios.comparison', { horizon: 30, selected: ['a'] });
     expect(await store.setting('scenarios.comparison', null)).toEqual({ horizon: 30, selected: ['a'] });
+  });
+});
+
+describe('saveExampleReportChoices', () => {
+  const ids = { referenceId: 'ref', scenarioIds: ['late', 'kiln', 'both'] };
+
+  it('points the report at the combined example on the given accounts, against the cushion', async () => {
+    const { store } = freshStore();
+    await store.saveSetting(REPORT_SETTING, { ...DEFAULT_REPORT_CHOICES, horizon: 30 });
+    await saveExampleReportChoices(store, ids, 'account:biz');
+    expect(await store.setting(REPORT_SETTING, null)).toEqual({
+      ...DEFAULT_REPORT_CHOICES,
+      horizon: 30,
+      scenarioId: 'both',
+      referenceId: 'ref',
+      scopeKey: 'account:biz',
+      threshold: DEMO_CUSHION * 100,
+      thresholdCurrency: 'EUR',
+    });
+  });
+
+  it('leaves a scenario the user chose for the report, and the scope when none is known', async () => {
+    const { store } = freshStore();
+    const chosen = { ...DEFAULT_REPORT_CHOICES, scenarioId: 'mine', scopeKey: 'currency:EUR' };
+    await store.saveSetting(REPORT_SETTING, chosen);
+    await saveExampleReportChoices(store, ids, 'account:biz');
+    expect(await store.setting(REPORT_SETTING, null)).toEqual(chosen);
+
+    const { store: fresh } = freshStore();
+    const saved = await saveExampleReportChoices(fresh, ids, null);
+    expect(saved.scopeKey).toBeNull();
+    expect(saved.scenarioId).toBe('both');
+    expect(await fresh.setting(REPORT_SETTING, null)).toEqual(saved);
   });
 });
 

@@ -22,6 +22,7 @@ import { thirteenWeekView } from '@engine/runway/thirteenWeekView';
 import { compareScenarios } from '@engine/scenario/compareScenarios';
 import { SCENARIO_SEED } from '../../components/scenarios/comparisonRun';
 import type { ScenarioStore } from '../../components/scenarios/scenarioStore';
+import { DEFAULT_REPORT_CHOICES, REPORT_SETTING, type ReportChoices } from '../../components/report/reportChoices';
 import { fileStem, reconciliationOf } from '../../components/report/reportDocument';
 import { localDateText } from '../../components/backup/workspaceBackup';
 import type { AccountRecord } from '../db/records';
@@ -29,31 +30,7 @@ import { CancelledError, EngineCallError } from '../worker/engineClient';
 import type { ReportForecastParams, ReportRun } from '../worker/scenarioMethods';
 import { BASE_NAME, scenarioEngine } from './scenarios.svelte';
 
-/** The workspace setting holding the report's choices. */
-export const REPORT_SETTING = 'report.choices';
-
-export interface ReportChoices {
-  readonly scopeKey: string | null;
-  /** Scenario shown, or null for the base forecast. */
-  readonly scenarioId: string | null;
-  /** What the scenario is compared with in the report: a scenario, or null for the base forecast. */
-  readonly referenceId: string | null;
-  readonly horizon: number;
-  readonly paths: number;
-  /** Minor units of `thresholdCurrency`. */
-  readonly threshold: number;
-  readonly thresholdCurrency: string | null;
-}
-
-export const DEFAULT_REPORT_CHOICES: ReportChoices = {
-  scopeKey: null,
-  scenarioId: null,
-  referenceId: null,
-  horizon: 91,
-  paths: 5000,
-  threshold: 0,
-  thresholdCurrency: null,
-};
+export { DEFAULT_REPORT_CHOICES, REPORT_SETTING, type ReportChoices };
 
 export type ReportStatus = 'idle' | 'running' | 'done' | 'cancelled' | 'error';
 
