@@ -214,7 +214,7 @@ describe('calendar dates on the axis and in words', () => {
 
 describe('money and percent text', () => {
   it('write minor units with the currency exponent, exactly', () => {
-    expect(moneyText(-123456, 'EUR')).toMatch(/^-EUR\s1,234\.56$/);
+    expect(moneyText(-123456, 'EUR')).toBe('-1,234.56 EUR');
     expect(moneyText(1234, 'JPY', { code: false })).toBe('1,234');
     expect(moneyText(1234, 'KWD', { code: false })).toBe('1.234');
     expect(moneyText(10000000.5, 'EUR', { code: false })).toBe('100,000.01');

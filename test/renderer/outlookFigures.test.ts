@@ -102,7 +102,7 @@ describe('shortfallHeadline', () => {
     const h = shortfallHeadline(0, 0, 5000, 90, 0, 'EUR');
     expect(h.figure).toBe('< 0.1%');
     expect(h.error).toBeNull();
-    expect(plain(h.caption)).toBe('None of the 5,000 simulated paths went below EUR 0.00 within the next 90 days.');
+    expect(plain(h.caption)).toBe('None of the 5,000 simulated paths went below 0.00 EUR within the next 90 days.');
     expect(shortfallHeadline(0, 0, 1000, 30, 0, 'EUR').figure).toBe('< 0.3%');
   });
 
@@ -112,7 +112,7 @@ describe('shortfallHeadline', () => {
     const h = shortfallHeadline(0.05, se, 10000, 90, 2500000, 'EUR');
     expect(h.figure).toBe('5.0%');
     expect(h.error).toBe('± 0.2 percentage points');
-    expect(plain(h.caption)).toContain('Estimated chance that the balance goes below EUR 25,000.00 at least once');
+    expect(plain(h.caption)).toContain('Estimated chance that the balance goes below 25,000.00 EUR at least once');
     expect(shortfallHeadline(0.456, 0.007, 5000, 90, 0, 'JPY').figure).toBe('46%');
   });
 });
@@ -203,7 +203,7 @@ describe('modelSummary and driverText', () => {
     expect(text).toContain(
       'Other money in is projected with Decomposition + ETS (ETS(A,N,N) on the seasonally adjusted series), chosen from 1 method by a backtest',
     );
-    expect(text).toContain('MASE 0.54, pinball loss EUR 135.44 a day, 95% of actual days inside the 80% range');
+    expect(text).toContain('MASE 0.54, pinball loss 135.44 EUR a day, 95% of actual days inside the 80% range');
     expect(text).toContain('Other money out is projected with Croston SBA (α = 0.10)');
     expect(text).not.toContain('Croston (SBA) (');
     expect(text).toContain('The day-to-day leftovers look like random noise.');
@@ -222,7 +222,7 @@ describe('modelSummary and driverText', () => {
   });
 
   it('words a driver as the difference on the paths that go below', () => {
-    expect(plain(driverText(-80000, 'EUR'))).toBe('EUR 800.00 less on the paths that go below');
-    expect(plain(driverText(1234, 'JPY'))).toBe('JPY 1,234 more on the paths that go below');
+    expect(plain(driverText(-80000, 'EUR'))).toBe('800.00 EUR less on the paths that go below');
+    expect(plain(driverText(1234, 'JPY'))).toBe('1,234 JPY more on the paths that go below');
   });
 });

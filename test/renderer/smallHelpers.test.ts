@@ -45,7 +45,7 @@ describe('reconciliationStatus', () => {
     expect(mismatch.attribute).toBe('false');
     expect(mismatch.label).toBe('Mismatch from 2026-01-15');
     expect(mismatch.detail.replace(/\u00a0/g, ' ')).toContain(
-      'jan.xml states EUR 1,000.00, the transactions give EUR 990.00 (difference EUR 10.00)',
+      'jan.xml states 1,000.00 EUR, the transactions give 990.00 EUR (difference 10.00 EUR)',
     );
     expect(reconciliationStatus({ ...account, reconciled: null, relative: true }).attribute).toBe('none');
     expect(reconciliationStatus({ ...account, reconciled: null, relative: true }).label).toBe('No stated balance');

@@ -1,7 +1,7 @@
 /**
  * Money for charts and their captions: integer minor units written with the currency's
  * ISO 4217 exponent (engine/core/currency.ts). The decimal text comes from the engine's
- * exact `formatMinor`; Intl only adds grouping and the currency code, so no amount passes
+ * exact `formatMinor`; Intl only adds grouping (the code follows the number), so no amount passes
  * through a binary fraction on its way to the screen.
  */
 import { minorUnitExponent } from '../../../../engine/core/currency';
@@ -14,23 +14,15 @@ export function shownExponent(currency: string): number {
   return minorUnitExponent(currency) ?? 2;
 }
 
-function formatter(currency: string, digits: number, withCode: boolean, signed: boolean): Intl.NumberFormat {
-  const key = `${currency}|${digits}|${withCode}|${signed}`;
+function formatter(digits: number, signed: boolean): Intl.NumberFormat {
+  const key = `${digits}|${signed}`;
   let f = formatters.get(key);
   if (!f) {
-    const base: Intl.NumberFormatOptions = {
+    f = new Intl.NumberFormat('en-GB', {
       minimumFractionDigits: digits,
       maximumFractionDigits: digits,
       signDisplay: signed ? 'exceptZero' : 'auto',
-    };
-    try {
-      f = new Intl.NumberFormat(
-        'en-GB',
-        withCode ? { ...base, style: 'currency', currency, currencyDisplay: 'code' } : base,
-      );
-    } catch {
-      f = new Intl.NumberFormat('en-GB', base);
-    }
+    });
     formatters.set(key, f);
   }
   return f;
@@ -48,19 +40,23 @@ export interface MoneyTextOptions {
 /**
  * Minor units as text: rounded to a whole minor unit (simulated quantiles are fractional),
  * then written with the currency's digits.
- * @example moneyText(-123456, 'EUR') // '-EUR 1,234.56'
+ * @example moneyText(-123456, 'EUR') // '-1,234.56 EUR'
  * @example moneyText(1234, 'JPY', { code: false }) // '1,234'
  * @example moneyText(1234567, 'EUR', { whole: true, code: false }) // '12,346'
  */
 export function moneyText(minor: number, currency: string, options: MoneyTextOptions = {}): string {
   const exponent = shownExponent(currency);
-  const code = options.code ?? true;
   const signed = options.signed ?? false;
+  let text: string;
   if (options.whole) {
     const major = Math.round(minor / 10 ** exponent);
-    return formatter(currency, 0, code, signed).format(major === 0 ? 0 : major);
+    text = formatter(0, signed).format(major === 0 ? 0 : major);
+  } else {
+    const rounded = Math.round(minor);
+    text = formatter(exponent, signed).format(
+      formatMinor(rounded === 0 ? 0 : rounded, exponent) as Intl.StringNumericLiteral,
+    );
   }
-  const rounded = Math.round(minor);
-  const text = formatMinor(rounded === 0 ? 0 : rounded, exponent) as Intl.StringNumericLiteral;
-  return formatter(currency, exponent, code, signed).format(text);
+  // The code after the number, as the app's other amounts and the engine's sentences.
+  return (options.code ?? true) ? `${text} ${currency}` : text;
 }

@@ -10,7 +10,10 @@ import { formatMinor, parsePlainDecimal } from '../../../../engine/core/money';
 export interface MoneyFormatOptions {
   /** BCP 47 locale; the browser's locale by default. */
   readonly locale?: string;
-  /** 'code' (EUR 12.50, the default: unambiguous in tables), 'symbol' (€12.50) or 'none' (12.50). */
+  /**
+   * 'code' (12.50 EUR, the default: unambiguous in tables, and the order the engine's
+   * sentences use, so a screen reads one way), 'symbol' (€12.50) or 'none' (12.50).
+   */
   readonly display?: 'code' | 'symbol' | 'none';
   /** 'exceptZero' writes a + before money in. Default 'auto'. */
   readonly signDisplay?: 'auto' | 'exceptZero' | 'always' | 'never';
@@ -49,12 +52,17 @@ function formatterFor(currency: string, options: MoneyFormatOptions): Intl.Numbe
 
 /**
  * Formats minor units of `currency`.
- * @example formatMoney(-123456, 'EUR', { locale: 'en' }) // '-EUR 1,234.56'
+ * @example formatMoney(-123456, 'EUR', { locale: 'en' }) // '-1,234.56 EUR'
  * @example formatMoney(1234, 'JPY', { locale: 'en', display: 'none' }) // '1,234'
  * @example formatMoney(1234, 'KWD', { locale: 'en', display: 'none' }) // '1.234'
  */
 export function formatMoney(minor: number, currency: string, options: MoneyFormatOptions = {}): string {
   const text = formatMinor(minor, displayExponent(currency)) as Intl.StringNumericLiteral;
+  if ((options.display ?? 'code') === 'code') {
+    // The number in the locale's digits, then the code, as engine/report/plainFormat.ts
+    // writes amounts in sentences ("-1,234.56 EUR").
+    return `${formatterFor(currency, { ...options, display: 'none' }).format(text)} ${currency}`;
+  }
   return formatterFor(currency, options).format(text);
 }
 
