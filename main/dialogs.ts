@@ -5,7 +5,7 @@
 import fs from 'node:fs/promises';
 import path from 'node:path';
 import { dialog, type BrowserWindow } from 'electron';
-import type { OpenedFile, SaveRequest, SaveResult } from './ipc-contract';
+import type { OpenedFile, OpenRequest, SaveRequest, SaveResult } from './ipc-contract';
 
 /** Same limit as the importers (engine/import/decode.ts MAX_STATEMENT_BYTES). */
 const MAX_STATEMENT_BYTES = 256 * 1024 * 1024;
@@ -21,14 +21,31 @@ export async function openStatementFiles(window: BrowserWindow): Promise<OpenedF
   });
   if (result.canceled) return [];
   const files: OpenedFile[] = [];
-  for (const file of result.filePaths) {
-    const stat = await fs.stat(file);
-    if (stat.size > MAX_STATEMENT_BYTES) {
-      throw new Error(`${path.basename(file)}: file is ${stat.size} bytes, the limit is 256 MiB`);
-    }
-    files.push({ name: path.basename(file), bytes: new Uint8Array(await fs.readFile(file)) });
-  }
+  for (const file of result.filePaths) files.push(await readPicked(file));
   return files;
+}
+
+async function readPicked(file: string): Promise<OpenedFile> {
+  const stat = await fs.stat(file);
+  if (stat.size > MAX_STATEMENT_BYTES) {
+    throw new Error(`${path.basename(file)}: file is ${stat.size} bytes, the limit is 256 MiB`);
+  }
+  return { name: path.basename(file), bytes: new Uint8Array(await fs.readFile(file)) };
+}
+
+/** One file of the kind asked for (all files can still be shown); null when cancelled. */
+export async function openOneFile(window: BrowserWindow, request: OpenRequest): Promise<OpenedFile | null> {
+  const result = await dialog.showOpenDialog(window, {
+    title: request.title,
+    properties: ['openFile'],
+    filters: [
+      { name: request.filter.name, extensions: [...request.filter.extensions] },
+      { name: 'All files', extensions: ['*'] },
+    ],
+  });
+  const [file] = result.filePaths;
+  if (result.canceled || file === undefined) return null;
+  return readPicked(file);
 }
 
 export async function saveContent(window: BrowserWindow, request: SaveRequest): Promise<SaveResult> {

@@ -11,6 +11,14 @@ export interface OpenedFile {
   readonly bytes: Uint8Array;
 }
 
+/** One file of a kind the renderer names (a backup, a plan file), picked in the open dialog. */
+export interface OpenRequest {
+  /** The dialog's title, e.g. "Restore a workspace backup". */
+  readonly title: string;
+  /** Dialog filter, e.g. { name: 'Ebbline backup', extensions: ['json'] }. */
+  readonly filter: { readonly name: string; readonly extensions: readonly string[] };
+}
+
 export interface SaveRequest {
   readonly suggestedName: string;
   /** Text (CSV, JSON, HTML) or bytes (zipped backup, PDF). */
@@ -38,6 +46,7 @@ export interface PdfRequest {
 /** Channels the renderer invokes and main answers. */
 export interface IpcContract {
   'statements:open': { request: null; response: OpenedFile[] };
+  'file:open': { request: OpenRequest; response: OpenedFile | null };
   'file:save': { request: SaveRequest; response: SaveResult };
   'report:pdf': { request: PdfRequest; response: SaveResult };
   'app:info': { request: null; response: AppInfo };
@@ -66,6 +75,7 @@ export const MENU_CHANNEL = 'menu:command';
 /** Method names of `window.ebbline` and the channel each one invokes. */
 export const API_METHODS = {
   openStatements: 'statements:open',
+  openFile: 'file:open',
   saveFile: 'file:save',
   saveReportPdf: 'report:pdf',
   appInfo: 'app:info',
@@ -105,6 +115,21 @@ function fileName(channel: string, x: unknown): string {
   return x;
 }
 
+function dialogFilter(channel: string, filter: unknown): OpenRequest['filter'] {
+  if (
+    !isRecord(filter) ||
+    typeof filter.name !== 'string' ||
+    filter.name.length > 100 ||
+    hasControlCharacter(filter.name) ||
+    !Array.isArray(filter.extensions) ||
+    filter.extensions.length === 0 ||
+    !filter.extensions.every((e) => typeof e === 'string' && /^[a-z0-9]{1,8}$/i.test(e))
+  ) {
+    throw new PayloadError(channel, 'filter must be { name, extensions: ["csv", …] }');
+  }
+  return { name: filter.name, extensions: filter.extensions as string[] };
+}
+
 /** Validators per channel: each returns the typed request or throws PayloadError. */
 export const REQUEST_VALIDATORS: { readonly [C in IpcChannel]: (payload: unknown) => IpcContract[C]['request'] } = {
   'statements:open': (p) => {
@@ -114,6 +139,14 @@ export const REQUEST_VALIDATORS: { readonly [C in IpcChannel]: (payload: unknown
   'app:info': (p) => {
     if (p !== null && p !== undefined) throw new PayloadError('app:info', 'takes no payload');
     return null;
+  },
+  'file:open': (p) => {
+    const c = 'file:open';
+    if (!isRecord(p)) throw new PayloadError(c, 'expected an object');
+    if (typeof p.title !== 'string' || p.title.length > 200 || hasControlCharacter(p.title)) {
+      throw new PayloadError(c, 'title must be a line of text');
+    }
+    return { title: p.title, filter: dialogFilter(c, p.filter) };
   },
   'file:save': (p) => {
     const c = 'file:save';
@@ -125,16 +158,7 @@ export const REQUEST_VALIDATORS: { readonly [C in IpcChannel]: (payload: unknown
     }
     const size = typeof content === 'string' ? content.length * 3 : content.byteLength;
     if (size > MAX_SAVE_BYTES) throw new PayloadError(c, 'content is larger than 512 MiB');
-    const filter = p.filter;
-    if (
-      !isRecord(filter) ||
-      typeof filter.name !== 'string' ||
-      !Array.isArray(filter.extensions) ||
-      !filter.extensions.every((e) => typeof e === 'string' && /^[a-z0-9]{1,8}$/i.test(e))
-    ) {
-      throw new PayloadError(c, 'filter must be { name, extensions: ["csv", …] }');
-    }
-    return { suggestedName, content, filter: { name: filter.name, extensions: filter.extensions as string[] } };
+    return { suggestedName, content, filter: dialogFilter(c, p.filter) };
   },
   'report:pdf': (p) => {
     const c = 'report:pdf';

@@ -6,7 +6,7 @@
 import { app, ipcMain, type BrowserWindow, type IpcMainInvokeEvent } from 'electron';
 import { REQUEST_VALIDATORS, type IpcChannel, type IpcContract } from './ipc-contract';
 import { isTrustedSender } from './security';
-import { openStatementFiles, saveContent, saveWindowAsPdf } from './dialogs';
+import { openOneFile, openStatementFiles, saveContent, saveWindowAsPdf } from './dialogs';
 
 type Handler<C extends IpcChannel> = (
   request: IpcContract[C]['request'],
@@ -15,6 +15,7 @@ type Handler<C extends IpcChannel> = (
 
 const HANDLERS: { [C in IpcChannel]: Handler<C> } = {
   'statements:open': (_r, w) => openStatementFiles(w),
+  'file:open': (r, w) => openOneFile(w, r),
   'file:save': (r, w) => saveContent(w, r),
   'report:pdf': (r, w) => saveWindowAsPdf(w, r.suggestedName),
   'app:info': async () => ({

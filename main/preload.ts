@@ -13,6 +13,7 @@ function invoker<R>(channel: string) {
 // Typed against EbblineApi: a channel added to the contract without a method here fails to compile.
 const api: EbblineApi = {
   openStatements: invoker(API_METHODS.openStatements),
+  openFile: invoker(API_METHODS.openFile),
   saveFile: invoker(API_METHODS.saveFile),
   saveReportPdf: invoker(API_METHODS.saveReportPdf),
   appInfo: invoker(API_METHODS.appInfo),

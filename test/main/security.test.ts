@@ -118,6 +118,10 @@ describe('IPC payload validation', () => {
       filter: { name: 'CSV', extensions: ['csv'] },
     });
     expect(req.suggestedName).toBe('outlook.csv');
+    const open = { title: 'Restore a workspace backup', filter: { name: 'Ebbline backup', extensions: ['json'] } };
+    expect(REQUEST_VALIDATORS['file:open'](open)).toEqual(open);
+    // Only the title and the filter reach the dialog: no path can be slipped in.
+    expect(REQUEST_VALIDATORS['file:open']({ ...open, defaultPath: '/etc' })).toEqual(open);
   });
 
   it('refuses malformed or dangerous payloads', () => {
@@ -127,6 +131,10 @@ describe('IPC payload validation', () => {
       ['file:save', { suggestedName: '../../.bashrc', content: 'x', filter: { name: 'T', extensions: ['txt'] } }],
       ['file:save', { suggestedName: 'a.csv', content: 42, filter: { name: 'CSV', extensions: ['csv'] } }],
       ['file:save', { suggestedName: 'a.csv', content: 'x', filter: { name: 'CSV', extensions: ['c/sv'] } }],
+      ['file:open', null],
+      ['file:open', { title: 'Open', filter: { name: 'Backup', extensions: [] } }],
+      ['file:open', { title: 'Open', filter: { name: 'Backup', extensions: ['*'] } }],
+      ['file:open', { title: 'Line one\nline two', filter: { name: 'Backup', extensions: ['json'] } }],
       ['report:pdf', { suggestedName: 'C:\\x.pdf' }],
       ['app:info', 'hello'],
     ];

@@ -14,8 +14,8 @@ export interface HostBridge {
   readonly kind: 'desktop' | 'browser';
   /** Lets the user pick statement files; resolves to [] when cancelled. */
   pickStatementFiles(): Promise<PickedFile[]>;
-  /** Lets the user pick one file of the given extensions (a backup, a plan). */
-  pickFile(extensions: readonly string[]): Promise<PickedFile | null>;
+  /** Lets the user pick one file of a kind (a backup, a plan); resolves to null when cancelled. */
+  pickFile(kind: FileKind): Promise<PickedFile | null>;
   /** Saves content under a name the user confirms; resolves to false when cancelled. */
   saveFile(
     suggestedName: string,
@@ -32,6 +32,13 @@ declare global {
   interface Window {
     ebbline?: EbblineApi;
   }
+}
+
+/** What the open dialog asks for: its title and the kind of file, by extension. */
+export interface FileKind {
+  readonly title: string;
+  readonly name: string;
+  readonly extensions: readonly string[];
 }
 
 function readAsBytes(file: File): Promise<PickedFile> {
@@ -66,8 +73,8 @@ function browserBridge(): HostBridge {
       const files = await chooseFiles('.csv,.txt,.ofx,.xml,.sta,.940,.mt940,.tsv,text/*,application/xml', true);
       return Promise.all(files.map(readAsBytes));
     },
-    async pickFile(extensions) {
-      const [file] = await chooseFiles(extensions.map((e) => `.${e}`).join(','), false);
+    async pickFile(kind) {
+      const [file] = await chooseFiles(kind.extensions.map((e) => `.${e}`).join(','), false);
       return file ? readAsBytes(file) : null;
     },
     async saveFile(suggestedName, content, filter) {
@@ -101,13 +108,7 @@ function desktopBridge(api: EbblineApi): HostBridge {
   return {
     kind: 'desktop',
     pickStatementFiles: () => api.openStatements(),
-    async pickFile(extensions) {
-      // The native dialog lists statements; backups and plans use the same picker with
-      // their own extension filter on the renderer side.
-      const files = await api.openStatements();
-      const file = files.find((f) => extensions.some((e) => f.name.toLowerCase().endsWith(`.${e}`))) ?? files[0];
-      return file ?? null;
-    },
+    pickFile: (kind) => api.openFile({ title: kind.title, filter: { name: kind.name, extensions: kind.extensions } }),
     async saveFile(suggestedName, content, filter) {
       const result = await api.saveFile({ suggestedName, content, filter });
       return result.saved;

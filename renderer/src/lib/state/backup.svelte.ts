@@ -107,7 +107,11 @@ export class BackupState {
   /** Asks the host for a file (desktop dialog; in a browser the panel's file input calls checkFile). */
   async chooseFile(): Promise<void> {
     this.#clear();
-    const file = await this.#host.pickFile(['json']);
+    const file = await this.#host.pickFile({
+      title: 'Restore a workspace backup',
+      name: 'Ebbline backup',
+      extensions: ['json'],
+    });
     if (file) await this.checkFile(file);
   }
 
