@@ -40,9 +40,18 @@ describe('weeklyRows', () => {
     expect(rows[12]?.date).toBe(addDays('2026-10-31', 90));
   });
 
-  it('reads P10, P50 and P90 of that very day (quantile indices 1, 3, 5) and both chances', () => {
+  it('reads the chart’s P5, P25, P50, P75 and P95 of that very day (quantile indices 0, 2, 3, 4, 6) and both chances', () => {
     const row = weeklyRows(outlooks(14, (d) => d / 100))[1];
-    expect(row).toEqual({ date: '2026-11-14', p10: 1013, p50: 3013, p90: 5013, pBelow: 0.065, pCrossed: 0.13 });
+    expect(row).toEqual({
+      date: '2026-11-14',
+      p5: 13,
+      p25: 2013,
+      p50: 3013,
+      p75: 4013,
+      p95: 6013,
+      pBelow: 0.065,
+      pCrossed: 0.13,
+    });
   });
 
   it('has no extra row for whole weeks and none at all for an empty outlook', () => {

@@ -15,12 +15,17 @@ import { Q, type BalancePoint } from '../../lib/charts/fanChartConfig';
 import { moneyText } from '../../lib/charts/moneyText';
 import { percentText } from '../../lib/charts/percentText';
 
-/** One row of the table view: the balance distribution at the end of a week. */
+/**
+ * One row of the table view: the balance distribution at the end of a week, at the
+ * quantiles the fan chart draws (its P5–P95 and P25–P75 bands and the median).
+ */
 export interface WeeklyRow {
   readonly date: string;
-  readonly p10: number;
+  readonly p5: number;
+  readonly p25: number;
   readonly p50: number;
-  readonly p90: number;
+  readonly p75: number;
+  readonly p95: number;
   /** Chance of being below the threshold on that date. */
   readonly pBelow: number;
   /** Chance of having gone below by that date. */
@@ -37,9 +42,11 @@ export function weeklyRows(daily: readonly DailyOutlook[]): WeeklyRow[] {
   const rows: WeeklyRow[] = [];
   const row = (d: DailyOutlook): WeeklyRow => ({
     date: d.date,
-    p10: d.quantiles[Q.p10] as number,
+    p5: d.quantiles[Q.p5] as number,
+    p25: d.quantiles[Q.p25] as number,
     p50: d.quantiles[Q.p50] as number,
-    p90: d.quantiles[Q.p90] as number,
+    p75: d.quantiles[Q.p75] as number,
+    p95: d.quantiles[Q.p95] as number,
     pBelow: d.pBelow,
     pCrossed: d.pCrossed,
   });
