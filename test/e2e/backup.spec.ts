@@ -6,7 +6,15 @@
 // off the original workspace; none is written into the test.
 import { readFileSync } from 'node:fs';
 import type { Page } from '@playwright/test';
-import { DEMO_WORKSPACE, expect, goToScreen, openDemo, screenshotScreen, test, workspaceRow } from './support';
+import {
+  DEMO_WORKSPACE,
+  expect,
+  goToScreen,
+  openDemoWithExamples,
+  screenshotScreen,
+  test,
+  workspaceRow,
+} from './support';
 
 /** What a workspace shows on its screens, to compare a restored copy with the original. */
 interface Shown {
@@ -145,11 +153,7 @@ test('a backup restored as a new workspace shows the same accounts, transactions
 }, testInfo) => {
   // The workspace is read three times, with two forecasts each, after the demo import.
   test.setTimeout(120_000);
-  await openDemo(page);
-  await goToScreen(page, 'Scenarios');
-  await page.getByTestId('scenario-add-examples').click();
-  await expect(page.getByTestId('scenarios-notice')).toContainText(/Added \d+ example scenarios/);
-  await expect(page.getByTestId('scenario-entry').first()).toBeVisible();
+  await openDemoWithExamples(page);
 
   const original = await readWorkspace(page);
   expect(original.accounts.length).toBeGreaterThan(0);

@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Locator } from '@playwright/test';
 import { formatAmount, formatDate, formatPercent, formatWeeks } from '../../engine/report/plainFormat';
 import { runwayFromCrossedShares, type RunwayQuantile } from '../../engine/runway/runwayFromCrossedShares';
-import { DEMO_DIR, demoFileNames, expect, goToScreen, openDemo, test } from './support';
+import { DEMO_DIR, demoFileNames, expect, openDemoWithExamples, test } from './support';
 
 /** The scenario followed: the demo's one whose paths cross the cushion most. */
 const SCENARIO = 'Kiln and late commission';
@@ -53,10 +53,7 @@ function runwayText(q: RunwayQuantile): string {
 test('a scenario exported from the app and run by ebbline forecast --plan gives the figures the screen shows', async ({
   page,
 }, testInfo) => {
-  await openDemo(page);
-  await goToScreen(page, 'Scenarios');
-  await page.getByTestId('scenario-add-examples').click();
-  await expect(page.getByTestId('scenarios-notice')).toContainText('Added 4 example scenarios');
+  await openDemoWithExamples(page);
 
   // Save the scenario's plan file, as the bookkeeper does to run it in batch.
   await page.locator(`[data-testid="scenario-entry"][data-name="${SCENARIO}"]`).click();

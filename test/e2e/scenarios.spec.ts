@@ -10,7 +10,7 @@ import type { Locator, Page } from '@playwright/test';
 import { CAUTION } from '../../engine/core/caution';
 import { formatPercent, formatWhole } from '../../engine/report/plainFormat';
 import { DEMO_CUSHION } from '../../engine/scenario/demoScenarios';
-import { expect, goToScreen, nav, openDemo, screenshotScreen, test } from './support';
+import { expect, goToScreen, nav, openDemo, openDemoWithExamples, screenshotScreen, test } from './support';
 
 const HIRE = 'Studio assistant from December';
 
@@ -155,10 +155,7 @@ test('a scenario made by hand is kept as typed across a reload and compared with
 test('the demo’s ready-made scenarios compared side by side tell the story in plain words', async ({
   page,
 }, testInfo) => {
-  await openDemo(page);
-  await goToScreen(page, 'Scenarios');
-  await page.getByTestId('scenario-add-examples').click();
-  await expect(page.getByTestId('scenarios-notice')).toContainText('Added 4 example scenarios');
+  await openDemoWithExamples(page);
   await page.getByTestId('scenarios-tab-compare').click();
   const picked = page.locator('[data-testid="comparison-pick"]:checked');
   await expect(picked).toHaveCount(3);
@@ -209,10 +206,7 @@ test('a scenario’s report is saved as PDF and its daily figures as CSV holding
   page,
 }, testInfo) => {
   const scenario = 'Kiln and late commission';
-  await openDemo(page);
-  await goToScreen(page, 'Scenarios');
-  await page.getByTestId('scenario-add-examples').click();
-  await expect(page.getByTestId('scenarios-notice')).toContainText('Added 4 example scenarios');
+  await openDemoWithExamples(page);
 
   await goToScreen(page, 'Report');
   await expect(page.getByTestId('report-caution')).toHaveText(CAUTION);

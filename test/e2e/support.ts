@@ -242,3 +242,15 @@ export async function openDemo(page: Page): Promise<void> {
   await expect(page.getByTestId('account-row')).toHaveCount(3);
   await expect(page.getByTestId('import-progress')).toBeHidden();
 }
+
+/**
+ * The demo workspace with its ready-made scenarios (engine/scenario/demoScenarios.ts):
+ * opened as on first launch, then "Add the example scenarios" on the Scenarios screen.
+ */
+export async function openDemoWithExamples(page: Page): Promise<void> {
+  await openDemo(page);
+  await goToScreen(page, 'Scenarios');
+  await page.getByTestId('scenario-add-examples').click();
+  await expect(page.getByTestId('scenarios-notice')).toContainText('Added 4 example scenarios');
+  await expect(page.getByTestId('scenario-entry')).toHaveCount(4);
+}
