@@ -22,6 +22,9 @@ import { QUANTILE_LEVELS } from '../simulate/types';
 /** Most scenarios compared with the base at once. */
 export const MAX_SCENARIOS = 4;
 
+/** How the app and the CLI's report name the forecast without any plan. */
+export const BASE_FORECAST_NAME = 'Base forecast (no changes)';
+
 const P10 = QUANTILE_LEVELS.indexOf(0.1);
 const P50 = QUANTILE_LEVELS.indexOf(0.5);
 const P90 = QUANTILE_LEVELS.indexOf(0.9);

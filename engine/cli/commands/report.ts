@@ -8,6 +8,8 @@
  * recurring flows, models and backtest scores, data period and reconciliation, and the
  * caution. For `.pdf` the command hands the HTML to bin/ebbline.mjs, which prints it with
  * a headless Chromium when one is installed (the engine itself starts no programs).
+ * With `--plan` the report is that scenario's, beside the base forecast (or beside the
+ * plan of `--reference`) on the same seed, as the app's Report screen makes it.
  * The same files, options and seed give the same report.
  */
 import { CAUTION } from '../../core/caution';
@@ -15,7 +17,10 @@ import { isCalendarDate } from '../../core/dates';
 import { renderReportHtml, type ReconciliationSummary } from '../../report/renderReportHtml';
 import { runway } from '../../runway/runway';
 import { thirteenWeekView } from '../../runway/thirteenWeekView';
+import { EMPTY_PLAN } from '../../plan/plan';
+import { BASE_FORECAST_NAME, compareScenarios } from '../../scenario/compareScenarios';
 import { forecastWithPaths } from '../../scenario/forecastWithPaths';
+import { loadPlan } from '../loadPlan';
 import type { StatementScope } from '../statementScope';
 import type { CliCommand, CliContext, CliOutcome, ParsedArgs } from '../types';
 import { FORECAST_OPTIONS, forecastOrRefusal, readForecastRequest, refused, withScopeNotes } from './forecast';
@@ -47,6 +52,12 @@ function reconciliationOf(scope: StatementScope): ReconciliationSummary {
   return { status, accounts };
 }
 
+/** A plan file's name without folders and extensions: "clients/kiln.plan.json" → "kiln". */
+function planStem(file: string): string {
+  const name = file.split(/[\\/]/).pop() ?? file;
+  return name.replace(/(\.plan)?\.json$/i, '') || name;
+}
+
 /** The `report` command. */
 export const reportCommand: CliCommand = {
   name: 'report',
@@ -54,7 +65,7 @@ export const reportCommand: CliCommand = {
   usage:
     'ebbline report <statement files...> --out report.html|report.pdf [--title TEXT] [--date YYYY-MM-DD] ' +
     '[--horizon 90] [--paths 5000] [--seed N] [--as-of YYYY-MM-DD] [--threshold 0] [--account NAME|ID] ' +
-    '[--currency CODE] [--plan plan.json]',
+    '[--currency CODE] [--plan plan.json [--reference plan.json]]',
   positionalName: 'statement file',
   minPositionals: 1,
   options: [
@@ -62,6 +73,11 @@ export const reportCommand: CliCommand = {
     { name: 'out', value: 'FILE', description: 'the report file to write, ending in .html or .pdf (required)' },
     { name: 'title', value: 'TEXT', description: 'title printed on the report (default: "Cash outlook")' },
     { name: 'date', value: 'YYYY-MM-DD', description: 'date printed as the day the report was made (default: today)' },
+    {
+      name: 'reference',
+      value: 'FILE',
+      description: 'with --plan: the plan the scenario is compared with (default: the base forecast, no changes)',
+    },
   ],
   async run(args: ParsedArgs, context: CliContext): Promise<CliOutcome> {
     const out = args.options.out;
@@ -75,15 +91,43 @@ export const reportCommand: CliCommand = {
     if (date !== undefined && (typeof date !== 'string' || !isCalendarDate(date))) {
       problems.push(`--date: "${String(date)}" is not a calendar date, expected YYYY-MM-DD`);
     }
+    const planFile = args.options.plan;
+    const referenceFile = args.options.reference;
+    if (referenceFile !== undefined && planFile === undefined) {
+      problems.push('--reference: given without --plan, expected --plan FILE for the scenario to compare with it');
+    }
     if (problems.length > 0) return refused(problems);
     const request = await readForecastRequest(args, context);
     if (!request.ok) return request.outcome;
     const { scope, history, config } = request.value;
+    let reference = { name: BASE_FORECAST_NAME, plan: EMPTY_PLAN };
+    if (typeof referenceFile === 'string') {
+      const loaded = await loadPlan(referenceFile, context.io, scope.currency);
+      if (!loaded.ok) return refused(loaded.problems);
+      reference = { name: loaded.value.name ?? planStem(referenceFile), plan: loaded.value };
+    }
     const computed = forecastOrRefusal('report', history, () => forecastWithPaths(history, config));
     if (!computed.ok) return computed.outcome;
     const run = computed.value;
     const result = withScopeNotes(run.result, scope);
-    const title = typeof args.options.title === 'string' ? args.options.title : 'Cash outlook';
+    // A scenario is reported beside its reference, on the same seed and paths.
+    const scenarioName = typeof planFile === 'string' ? (config.plan.name ?? planStem(planFile)) : null;
+    let comparison: ReturnType<typeof compareScenarios> | undefined;
+    if (scenarioName !== null) {
+      const base = forecastOrRefusal('report', history, () =>
+        forecastWithPaths(history, { ...config, plan: reference.plan }),
+      );
+      if (!base.ok) return base.outcome;
+      comparison = compareScenarios(base.value.result, [{ name: scenarioName, result: run.result }], {
+        baseName: reference.name,
+      });
+    }
+    const title =
+      typeof args.options.title === 'string'
+        ? args.options.title
+        : scenarioName !== null
+          ? `Cash outlook: scenario “${scenarioName}”`
+          : 'Cash outlook';
     const html = renderReportHtml({
       result,
       title,
@@ -93,6 +137,7 @@ export const reportCommand: CliCommand = {
       reconciliation: reconciliationOf(scope),
       weeks: thirteenWeekView(result, run.components),
       runway: runway({ result, history }),
+      ...(comparison ? { comparison } : {}),
     });
     const path = out as string;
     const pdf = /\.pdf$/i.test(path);

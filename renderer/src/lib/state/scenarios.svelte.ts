@@ -23,7 +23,7 @@ import {
 import type { SeriesScope } from '@engine/ledger/dailySeries';
 import type { RecurringChange } from '@engine/plan/plan';
 import type { DetectedRecurringFlow } from '@engine/recurring/detectRecurringFlows';
-import { MAX_SCENARIOS } from '@engine/scenario/compareScenarios';
+import { BASE_FORECAST_NAME, MAX_SCENARIOS } from '@engine/scenario/compareScenarios';
 import { DEMO_CUSHION, demoScenarioSet } from '@engine/scenario/demoScenarios';
 import {
   draftFromDocument,
@@ -565,8 +565,8 @@ export const DEFAULT_CHOICES: ComparisonChoices = {
 export const HORIZON_CHOICES = [30, 61, 91, 182, 365] as const;
 export const PATH_CHOICES = [1000, 5000, 10000] as const;
 
-/** The name of the base forecast column. */
-export const BASE_NAME = 'Base forecast (no changes)';
+/** The name of the base forecast column (the CLI's report uses the same). */
+export const BASE_NAME = BASE_FORECAST_NAME;
 
 export class ComparisonState {
   #choices = $state.raw<ComparisonChoices>(DEFAULT_CHOICES);
