@@ -54,7 +54,10 @@ export function describeRunway(estimate: RunwayEstimate): string[] {
       `Average weekly burn over the last ${weeks} (${period}): none; the net flow was ${formatAmount(burn.netPerWeek, currency)} a week.`,
     );
   }
-  const label = 'Naive runway (balance divided by that burn; it ignores timing, seasonality and uncertainty)';
+  const label =
+    s.threshold === 0
+      ? 'Naive runway (balance divided by that burn; it ignores timing, seasonality and uncertainty)'
+      : `Naive runway (balance above ${line} divided by that burn; it ignores timing, seasonality and uncertainty)`;
   if (naive.status === 'burning' && naive.weeks !== null) sentences.push(`${label}: ${formatWeeks(naive.weeks)}.`);
   else if (naive.status === 'below') sentences.push(`${label}: none, the balance is already below ${line}.`);
   else sentences.push(`${label}: not defined, because the account did not burn cash over that period.`);

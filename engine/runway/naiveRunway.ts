@@ -13,7 +13,7 @@ export interface NaiveRunway {
 
 /** How the naive runway is labelled wherever it is shown. */
 export const NAIVE_RUNWAY_LABEL =
-  'Naive runway: balance divided by the average weekly burn of the last 13 weeks; ignores timing, seasonality and uncertainty';
+  'Naive runway: balance above the threshold divided by the average weekly burn of the last 13 weeks; ignores timing, seasonality and uncertainty';
 
 /**
  * @param balance balance on the as-of date (minor units).

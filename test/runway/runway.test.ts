@@ -41,7 +41,15 @@ describe('runway', () => {
     expect(r.caution).toBe(CAUTION);
     const text = describeRunway(r);
     expect(text).toHaveLength(3);
-    expect(text[2]).toMatch(/^Naive runway/);
+    expect(text[2]).toMatch(/^Naive runway \(balance divided by that burn/);
+  });
+
+  it('names the threshold in the naive runway when there is one', () => {
+    const r = runway({ result: run.result, history, sim: run.sim, threshold: 100_000 });
+    if (r.naive.weeks !== null) {
+      expect(r.naive.weeks).toBeCloseTo((history.endBalance - 100_000) / r.burn.burnPerWeek, 9);
+    }
+    expect(describeRunway(r)[2]).toMatch(/^Naive runway \(balance above 1,000\.00 [A-Z]{3} divided by that burn/);
   });
 
   it('needs the raw paths for another threshold, and then uses them', () => {
