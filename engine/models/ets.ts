@@ -39,15 +39,20 @@ function freeStateCount(spec: EtsSpec): number {
   return 1 + (spec.trend === 'N' ? 0 : 1) + (spec.season === 'A' ? spec.period - 1 : 0);
 }
 
-/** Appends the implied last seasonal state (−Σ of the others) to a free initial state. */
-function completeState(spec: EtsSpec, free: ArrayLike<number>, out: Float64Array): void {
+/**
+ * Appends the implied last seasonal state (−Σ of the others) to a free initial state, read
+ * from `free` at `offset` on (an offset rather than a subarray: this runs at every
+ * likelihood evaluation, and a subarray is an allocation).
+ */
+function completeState(spec: EtsSpec, free: ArrayLike<number>, offset: number, out: Float64Array): void {
   const width = etsStateWidth(spec);
   const freeCount = freeStateCount(spec);
   let sum = 0;
   const base = spec.trend === 'N' ? 1 : 2;
   for (let j = 0; j < freeCount; j++) {
-    out[j] = free[j] as number;
-    if (j >= base) sum += free[j] as number;
+    const v = free[offset + j] as number;
+    out[j] = v;
+    if (j >= base) sum += v;
   }
   if (spec.season === 'A') out[width - 1] = -sum;
 }
@@ -256,7 +261,7 @@ export function estimateEts(y: Series, config: EtsConfig, enforceShortSeries: bo
     if (!etsParametersAllowed({ alpha: a, beta: b, gamma: g, phi: p }, estimated, lower, upper, bounds, m)) {
       return Infinity;
     }
-    completeState(spec, x.subarray(parameterCount), fullState);
+    completeState(spec, x, parameterCount, fullState);
     const sse = etsSse(y, spec, a, b ?? 0, g ?? 0, p ?? 1, fullState, ring);
     let lik = n * Math.log(sse);
     if (Number.isNaN(lik)) return Infinity;
@@ -310,7 +315,7 @@ export function estimateEts(y: Series, config: EtsConfig, enforceShortSeries: bo
   }
   const best = read(bestX);
   const initialState = new Float64Array(width);
-  completeState(spec, bestX.subarray(parameterCount), initialState);
+  completeState(spec, bestX, parameterCount, initialState);
   return summarise({
     y,
     spec,

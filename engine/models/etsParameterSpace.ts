@@ -38,6 +38,12 @@ export interface EtsEstimated {
 }
 
 /**
+ * Coefficients of the characteristic polynomial, one array per period, reused: the test runs
+ * at every likelihood evaluation of a seasonal fit, and every entry is written before use.
+ */
+const coefficientScratch: Float64Array[] = [];
+
+/**
  * True when the parameters lie in forecast::ets's admissible region for period m.
  *
  * Complexity: O(m²) for seasonal models (Schur–Cohn test), O(1) otherwise.
@@ -60,7 +66,7 @@ export function etsAdmissible(p: EtsParameterValues, period: number): boolean {
   if (gamma < Math.max(1 - 1 / phi - alpha, 0) || gamma > 1 + 1 / phi - alpha) return false;
   if (alpha < 1 - 1 / phi - (gamma * (1 - m + phi + phi * m)) / (2 * phi * m)) return false;
   if (beta < -(1 - phi) * (gamma / m + alpha)) return false;
-  const c = new Float64Array(m + 2);
+  const c = (coefficientScratch[m] ??= new Float64Array(m + 2));
   c[0] = phi * (1 - alpha - gamma);
   c[1] = alpha + beta - alpha * phi + gamma - 1;
   for (let k = 2; k < m; k++) c[k] = alpha + beta - alpha * phi;

@@ -55,6 +55,7 @@ export function etsSse(
   const hasTrend = spec.trend !== 'N';
   const level = initialState[0] as number;
   if (spec.season !== 'A') {
+    if (hasTrend && phi === 1) return sseUndampedTrend(y, alpha, beta / alpha, level, initialState[1] as number);
     return hasTrend
       ? sseTrend(y, alpha, beta / alpha, phi, level, initialState[1] as number)
       : sseLevel(y, alpha, level);
@@ -63,6 +64,9 @@ export function etsSse(
   // Ring order: ring[oldest] = s_{t−m}, then newer ones after it (wrapping); oldest starts at 0.
   const base = hasTrend ? 2 : 1;
   for (let j = 0; j < m; j++) ring[j] = initialState[base + m - 1 - j] as number;
+  if (hasTrend && phi === 1) {
+    return sseUndampedTrendSeason(y, alpha, beta / alpha, gamma, level, initialState[1] as number, ring, m);
+  }
   return hasTrend
     ? sseTrendSeason(y, alpha, beta / alpha, gamma, phi, level, initialState[1] as number, ring, m)
     : sseSeason(y, alpha, gamma, level, ring, m);
@@ -93,6 +97,25 @@ function sseTrend(y: Series, alpha: number, ratio: number, phi: number, level: n
     sse += e * e;
     const newLevel = q + alpha * (yt - q);
     slope = phib + ratio * (newLevel - level - phib);
+    level = newLevel;
+  }
+  return sse;
+}
+
+/**
+ * sseTrend with φ = 1: φ·b is then b exactly (multiplying by 1 is exact in IEEE arithmetic),
+ * and leaving the product out shortens the recursion's chain of dependent operations.
+ */
+function sseUndampedTrend(y: Series, alpha: number, ratio: number, level: number, slope: number): number {
+  const n = y.length;
+  let sse = 0;
+  for (let t = 0; t < n; t++) {
+    const yt = y[t] as number;
+    const q = level + slope;
+    const e = yt - q;
+    sse += e * e;
+    const newLevel = q + alpha * (yt - q);
+    slope = slope + ratio * (newLevel - level - slope);
     level = newLevel;
   }
   return sse;
@@ -139,6 +162,35 @@ function sseTrendSeason(
     sse += e * e;
     const newLevel = q + alpha * (yt - s - q);
     slope = phib + ratio * (newLevel - level - phib);
+    ring[oldest] = s + gamma * (yt - q - s);
+    oldest = oldest + 1 === m ? 0 : oldest + 1;
+    level = newLevel;
+  }
+  return sse;
+}
+
+/** sseTrendSeason with φ = 1 (see sseUndampedTrend). */
+function sseUndampedTrendSeason(
+  y: Series,
+  alpha: number,
+  ratio: number,
+  gamma: number,
+  level: number,
+  slope: number,
+  ring: Float64Array,
+  m: number,
+): number {
+  const n = y.length;
+  let oldest = 0;
+  let sse = 0;
+  for (let t = 0; t < n; t++) {
+    const yt = y[t] as number;
+    const s = ring[oldest] as number;
+    const q = level + slope;
+    const e = yt - (q + s);
+    sse += e * e;
+    const newLevel = q + alpha * (yt - s - q);
+    slope = slope + ratio * (newLevel - level - slope);
     ring[oldest] = s + gamma * (yt - q - s);
     oldest = oldest + 1 === m ? 0 : oldest + 1;
     level = newLevel;

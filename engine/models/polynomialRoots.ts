@@ -161,6 +161,13 @@ export function maxRootModulus(coefficients: ArrayLike<number>): number {
 }
 
 /**
+ * Work space of rootsInsideRadius (the polynomial and its reduction), grown when needed and
+ * reused: the ETS admissibility test calls it at every likelihood evaluation. Every entry is
+ * written before it is read.
+ */
+let schurScratch = new Float64Array(0);
+
+/**
  * True when every root of c[0] + c[1]·z + … + c[d]·z^d has modulus below `radius`, by the
  * Schur–Cohn test (Henrici 1974, Applied and Computational Complex Analysis, vol. 1,
  * section 6.8): with q(w) = p(radius·w), all roots lie in the unit disk iff |q_0| < |q_d| and
@@ -185,13 +192,14 @@ export function rootsInsideRadius(coefficients: ArrayLike<number>, radius: numbe
   }
   while (degree >= 0 && coefficients[degree] === 0) degree--;
   if (degree < 0) throw new EngineError('INVALID_ARGUMENT', 'the zero polynomial has no defined roots');
-  const q = new Float64Array(degree + 1);
+  if (schurScratch.length < 2 * (degree + 1)) schurScratch = new Float64Array(2 * (degree + 1));
+  const q = schurScratch.subarray(0, degree + 1);
   let power = 1;
   for (let k = 0; k <= degree; k++) {
     q[k] = (coefficients[k] as number) * power;
     power *= radius;
   }
-  const next = new Float64Array(degree + 1);
+  const next = schurScratch.subarray(degree + 1, 2 * (degree + 1));
   for (let d = degree; d > 0; d--) {
     const q0 = q[0] as number;
     const qd = q[d] as number;
