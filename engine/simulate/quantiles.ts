@@ -12,6 +12,47 @@ function swap(a: Float64Array, i: number, j: number): void {
   a[j] = t;
 }
 
+/** Sorts a short range `a[lo..hi]` by insertion. */
+function insertionSort(a: Float64Array, lo: number, hi: number): void {
+  for (let i = lo + 1; i <= hi; i++) {
+    const v = a[i] as number;
+    let j = i - 1;
+    while (j >= lo && (a[j] as number) > v) {
+      a[j + 1] = a[j] as number;
+      j--;
+    }
+    a[j + 1] = v;
+  }
+}
+
+/** Where the last {@link partition} ended: its right part starts here. */
+let rightStart = 0;
+
+/**
+ * Hoare partition of `a[lo..hi]` around the median of three: afterwards a[lo..j] ≤ pivot,
+ * a[j+1..i−1] = pivot and a[i..hi] ≥ pivot. Returns j; i is left in `rightStart`.
+ */
+function partition(a: Float64Array, lo: number, hi: number): number {
+  const mid = (lo + hi) >>> 1;
+  if ((a[mid] as number) < (a[lo] as number)) swap(a, mid, lo);
+  if ((a[hi] as number) < (a[lo] as number)) swap(a, hi, lo);
+  if ((a[hi] as number) < (a[mid] as number)) swap(a, hi, mid);
+  const pivot = a[mid] as number;
+  let i = lo;
+  let j = hi;
+  while (i <= j) {
+    while ((a[i] as number) < pivot) i++;
+    while ((a[j] as number) > pivot) j--;
+    if (i <= j) {
+      swap(a, i, j);
+      i++;
+      j--;
+    }
+  }
+  rightStart = i;
+  return j;
+}
+
 /**
  * Rearranges `a[lo..hi]` so that a[k] is the value a full sort would put there, everything
  * left of it ≤ a[k] and everything right of it ≥ a[k]. Expected O(hi − lo).
@@ -19,33 +60,11 @@ function swap(a: Float64Array, i: number, j: number): void {
 export function selectInPlace(a: Float64Array, k: number, lo = 0, hi = a.length - 1): void {
   while (hi > lo) {
     if (hi - lo < 16) {
-      for (let i = lo + 1; i <= hi; i++) {
-        const v = a[i] as number;
-        let j = i - 1;
-        while (j >= lo && (a[j] as number) > v) {
-          a[j + 1] = a[j] as number;
-          j--;
-        }
-        a[j + 1] = v;
-      }
+      insertionSort(a, lo, hi);
       return;
     }
-    const mid = (lo + hi) >>> 1;
-    if ((a[mid] as number) < (a[lo] as number)) swap(a, mid, lo);
-    if ((a[hi] as number) < (a[lo] as number)) swap(a, hi, lo);
-    if ((a[hi] as number) < (a[mid] as number)) swap(a, hi, mid);
-    const pivot = a[mid] as number;
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while ((a[i] as number) < pivot) i++;
-      while ((a[j] as number) > pivot) j--;
-      if (i <= j) {
-        swap(a, i, j);
-        i++;
-        j--;
-      }
-    }
+    const j = partition(a, lo, hi);
+    const i = rightStart;
     if (k <= j) hi = j;
     else if (k >= i) lo = i;
     else return;
@@ -61,37 +80,23 @@ export function selectInPlace(a: Float64Array, k: number, lo = 0, hi = a.length 
 function selectRanks(a: Float64Array, lo: number, hi: number, ranks: Int32Array, rlo: number, rhi: number): void {
   while (rlo <= rhi && hi > lo) {
     if (hi - lo < 16) {
-      selectInPlace(a, ranks[rlo] as number, lo, hi); // insertion-sorts the whole small range
+      insertionSort(a, lo, hi);
       return;
     }
-    const mid = (lo + hi) >>> 1;
-    if ((a[mid] as number) < (a[lo] as number)) swap(a, mid, lo);
-    if ((a[hi] as number) < (a[lo] as number)) swap(a, hi, lo);
-    if ((a[hi] as number) < (a[mid] as number)) swap(a, hi, mid);
-    const pivot = a[mid] as number;
-    let i = lo;
-    let j = hi;
-    while (i <= j) {
-      while ((a[i] as number) < pivot) i++;
-      while ((a[j] as number) > pivot) j--;
-      if (i <= j) {
-        swap(a, i, j);
-        i++;
-        j--;
-      }
-    }
-    // a[lo..j] ≤ pivot, a[j+1..i−1] = pivot, a[i..hi] ≥ pivot.
+    const j = partition(a, lo, hi);
+    const i = rightStart;
+    // Ranks ≤ j are on the left, ranks ≥ i on the right, those between hold the pivot.
     let leftEnd = rlo - 1;
     while (leftEnd < rhi && (ranks[leftEnd + 1] as number) <= j) leftEnd++;
-    let rightStart = leftEnd + 1;
-    while (rightStart <= rhi && (ranks[rightStart] as number) < i) rightStart++;
+    let firstRight = leftEnd + 1;
+    while (firstRight <= rhi && (ranks[firstRight] as number) < i) firstRight++;
     // Recurse into the side with fewer elements, loop on the other.
     if (j - lo < hi - i) {
       if (leftEnd >= rlo) selectRanks(a, lo, j, ranks, rlo, leftEnd);
       lo = i;
-      rlo = rightStart;
+      rlo = firstRight;
     } else {
-      if (rightStart <= rhi) selectRanks(a, i, hi, ranks, rightStart, rhi);
+      if (firstRight <= rhi) selectRanks(a, i, hi, ranks, firstRight, rhi);
       hi = j;
       rhi = leftEnd;
     }
