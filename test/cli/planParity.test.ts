@@ -52,7 +52,12 @@ import {
   readPlanFile,
 } from '../../renderer/src/components/scenarios/planFile';
 import { ScenarioStore } from '../../renderer/src/components/scenarios/scenarioStore';
-import { applyLedgerChange, storedLedgerInput, type FileToStore } from '../../renderer/src/lib/db/applyLedgerChange';
+import {
+  applyLedgerChange,
+  newStatementRecord,
+  storedLedgerInput,
+  type FileToStore,
+} from '../../renderer/src/lib/db/applyLedgerChange';
 import type { AccountRecord, ScenarioRecord } from '../../renderer/src/lib/db/records';
 import { deleteWorkspaceDb, openWorkspaceDb, type WorkspaceDb } from '../../renderer/src/lib/db/WorkspaceDb';
 import { clearAnalysisCache } from '../../renderer/src/lib/worker/analysisMethods';
@@ -101,7 +106,7 @@ async function importLikeTheApp(): Promise<void> {
     const result = f.result as ImportResult;
     return {
       result,
-      record: {
+      record: newStatementRecord({
         id: `file-${i + 1}`,
         fileName: f.name,
         format: result.format,
@@ -110,14 +115,7 @@ async function importLikeTheApp(): Promise<void> {
         size: f.size,
         contentHash: f.contentHash,
         options: {},
-        accounts: [],
-        accountIds: [],
-        from: null,
-        to: null,
-        entries: 0,
-        duplicates: 0,
-        problems: [],
-      },
+      }),
     };
   });
   await applyLedgerChange(db, { basedOn: [], add, remove: [], ledger, csvMappings: [] });

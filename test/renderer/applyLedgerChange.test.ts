@@ -13,10 +13,10 @@ import {
   WorkspaceChangedError,
   applyLedgerChange,
   isQuotaExceeded,
+  newStatementRecord,
   storedLedgerInput,
   type FileToStore,
 } from '../../renderer/src/lib/db/applyLedgerChange';
-import type { StatementRecord } from '../../renderer/src/lib/db/records';
 import { WorkspaceDb } from '../../renderer/src/lib/db/WorkspaceDb';
 
 const DEMO = new URL('../../resources/demo/statements/', import.meta.url);
@@ -30,7 +30,7 @@ function read(name: string): LedgerInputFile {
 let seq = 0;
 function toStore(file: LedgerInputFile): FileToStore {
   seq++;
-  const record: StatementRecord = {
+  const record = newStatementRecord({
     id: `id-${file.file}`,
     fileName: file.file,
     format: file.result.format,
@@ -39,14 +39,7 @@ function toStore(file: LedgerInputFile): FileToStore {
     size: 1,
     contentHash: `hash-${file.file}`,
     options: {},
-    accounts: [],
-    accountIds: [],
-    from: null,
-    to: null,
-    entries: 0,
-    duplicates: 0,
-    problems: [],
-  };
+  });
   return { record, result: file.result };
 }
 

@@ -12,8 +12,7 @@ import { importStatement } from '../../engine/import/registry';
 import type { ImportResult } from '../../engine/import/types';
 import { buildLedger, type LedgerInputFile } from '../../engine/ledger/buildLedger';
 import { kilnOnCreditPlan } from '../../engine/scenario/demoScenarios';
-import { applyLedgerChange, type FileToStore } from '../../renderer/src/lib/db/applyLedgerChange';
-import type { StatementRecord } from '../../renderer/src/lib/db/records';
+import { applyLedgerChange, newStatementRecord, type FileToStore } from '../../renderer/src/lib/db/applyLedgerChange';
 import { RegistryDb, WorkspaceDb, workspaceDbName } from '../../renderer/src/lib/db/WorkspaceDb';
 import {
   backupFileName,
@@ -51,7 +50,7 @@ async function seededWorkspace(): Promise<WorkspaceDb> {
   await db.open();
   const files = FILES.map(read);
   const add: FileToStore[] = files.map((f, i) => {
-    const record: StatementRecord = {
+    const record = newStatementRecord({
       id: `file-${i}`,
       fileName: f.file,
       format: f.result.format,
@@ -60,14 +59,7 @@ async function seededWorkspace(): Promise<WorkspaceDb> {
       size: 100 + i,
       contentHash: `hash-${i}`,
       options: {},
-      accounts: [],
-      accountIds: [],
-      from: null,
-      to: null,
-      entries: 0,
-      duplicates: 0,
-      problems: [],
-    };
+    });
     return { record, result: f.result };
   });
   await applyLedgerChange(db, { basedOn: [], add, remove: [], ledger: buildLedger(files) });

@@ -22,6 +22,17 @@ export interface FileToStore {
   readonly result: ImportResult;
 }
 
+/** What a new file's record holds before the ledger's fields are filled in. */
+export type NewStatementFields = Pick<
+  StatementRecord,
+  'id' | 'fileName' | 'format' | 'importedAt' | 'seq' | 'size' | 'contentHash' | 'options'
+>;
+
+/** A new file's record, its ledger fields (accounts, period, counts, problems) still empty. */
+export function newStatementRecord(fields: NewStatementFields): StatementRecord {
+  return { ...fields, accounts: [], accountIds: [], from: null, to: null, entries: 0, duplicates: 0, problems: [] };
+}
+
 /** One change of the stored files and the ledger of the files after it. */
 export interface LedgerChange {
   /** Ids of the stored files, in `seq` order, when the ledger was built. */

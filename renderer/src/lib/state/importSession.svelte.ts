@@ -10,7 +10,7 @@ import { formatProblem } from '../../../../engine/cli/formatProblem';
 import { hasErrors, type ImportResult } from '../../../../engine/import/types';
 import type { FileAccountReport, Ledger, LedgerAccount } from '../../../../engine/ledger/types';
 import type { CsvMapping } from '../../../../engine/import/csv';
-import { WorkspaceChangedError, type FileToStore } from '../db/applyLedgerChange';
+import { newStatementRecord, WorkspaceChangedError, type FileToStore } from '../db/applyLedgerChange';
 import type { CsvMappingRecord, StatementImportOptions, StatementRecord } from '../db/records';
 import type { PickedFile } from '../host/hostBridge';
 import { uniqueFileName } from '../import/uniqueFileName';
@@ -364,7 +364,7 @@ export class ImportSession {
       const result = f.parsed.result as ImportResult;
       return {
         result,
-        record: {
+        record: newStatementRecord({
           id: newId(),
           fileName: f.name,
           format: result.format,
@@ -373,14 +373,7 @@ export class ImportSession {
           size: f.parsed.size,
           contentHash: f.parsed.contentHash,
           options: f.options,
-          accounts: [],
-          accountIds: [],
-          from: null,
-          to: null,
-          entries: 0,
-          duplicates: 0,
-          problems: [],
-        },
+        }),
       };
     });
     const csvMappings: CsvMappingRecord[] = [];
