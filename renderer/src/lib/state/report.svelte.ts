@@ -30,8 +30,6 @@ import { CancelledError, EngineCallError } from '../worker/engineClient';
 import type { ReportForecastParams, ReportRun } from '../worker/scenarioMethods';
 import { BASE_NAME, scenarioEngine } from './scenarios.svelte';
 
-export { DEFAULT_REPORT_CHOICES, REPORT_SETTING, type ReportChoices };
-
 export type ReportStatus = 'idle' | 'running' | 'done' | 'cancelled' | 'error';
 
 /** A finished report. */
