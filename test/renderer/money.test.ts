@@ -21,6 +21,7 @@ describe('formatMoney', () => {
     expect(formatMoney(123450, 'EUR', { locale: 'de-DE', display: 'none' })).toBe('1.234,50');
     expect(formatMoney(1250, 'EUR', { locale: 'en', signDisplay: 'exceptZero' })).toBe('+12.50 EUR');
     expect(formatMoney(0, 'EUR', { locale: 'en', signDisplay: 'exceptZero' })).toBe('0.00 EUR');
+    // Common practice, no source: German groups with a point and separates decimals with a comma.
     expect(formatMoney(-123450, 'EUR', { locale: 'de-DE' })).toBe('-1.234,50 EUR');
   });
 

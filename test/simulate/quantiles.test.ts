@@ -41,6 +41,7 @@ describe('quantiles', () => {
   it('gives exactly the full-sort value, ties and tiny samples included', () => {
     // The multiple-rank selection must reproduce the definition it replaced bit for bit:
     // sort, x[k] when h is whole, else x[k] + (h − k)(x[k+1] − x[k]).
+    // Source: Hyndman and Fan (1996), "Sample quantiles in statistical packages", definition 7.
     const exact = (sample: readonly number[], p: number): number => {
       const s = [...sample].sort((a, b) => a - b);
       const h = (s.length - 1) * p;
